@@ -1,0 +1,33 @@
+/**
+ * The solver's private copy of a validated model: flat typed arrays, so that solving allocates
+ * little and never keeps a reference to the caller's objects.
+ */
+
+/** Numbers stored per load: kind code, start, end, first magnitude, second magnitude. */
+export const LOAD_STRIDE = 5;
+/** Numbers stored per support: position, type code. */
+export const SUPPORT_STRIDE = 2;
+
+/** Kind code of a linearly varying line load: [kind, start, end, w1, w2]. */
+export const KIND_LINE = 0;
+/** Kind code of a point load: [kind, x, x, p, 0]. */
+export const KIND_POINT = 1;
+/** Kind code of an applied couple: [kind, x, x, m, 0]. */
+export const KIND_MOMENT = 2;
+
+/** Type code of a pin (vertical restraint only). */
+export const TYPE_PIN = 0;
+/** Type code of a fixed support (vertical and rotational restraint). */
+export const TYPE_FIXED = 1;
+
+/** A validated model, copied into flat arrays (see the stride and code constants). */
+export interface PackedModel {
+  /** Length of the member (any consistent length unit). */
+  readonly span: number;
+  readonly loadCount: number;
+  readonly supportCount: number;
+  /** LOAD_STRIDE numbers per load. */
+  readonly loads: Float64Array;
+  /** SUPPORT_STRIDE numbers per support, in the order given. */
+  readonly supports: Float64Array;
+}
