@@ -1,0 +1,205 @@
+/**
+ * The Office.js adapter of the workbook port: the only module of the add-in that calls
+ * `Excel.run`. Reads load only the properties they use and sync a fixed number of times each;
+ * writes and names are queued and sent by {@link OfficeWorkbookPort.flush} in requests of
+ * bounded size, with calculation suspended and events off, so a build costs the same handful of
+ * round trips whether the building has 50 members or 5,000 (plus one per ~4 MB of formulas).
+ */
+import { ForeignSheetError, GENERATED_MARKER, type CellInput, type RangeData, type TableInfo, type WorkbookPort } from "./port";
+import { DEFAULT_CHUNK_BYTES, fromExcelValue, parseRangeAddress, planChunks, splitSheetRef, type QueuedBlock } from "./office-chunks";
+
+/** The cell that holds the generated-sheet marker on a sheet the add-in made. */
+export const MARKER_CELL = "A1";
+
+/** Options of the adapter (tests shrink the request budget to see chunking at small sizes). */
+export interface OfficePortOptions {
+  /** Request size budget in bytes (default 4 MB, under the ~5 MB limit of Excel on the web). */
+  readonly chunkBytes?: number;
+}
+
+/** True when the host supports an ExcelApi requirement set (assumed when Office is absent, as in tests). */
+function supports(version: string): boolean {
+  if (typeof Office === "undefined" || !Office.context?.requirements) return true;
+  return Office.context.requirements.isSetSupported("ExcelApi", version);
+}
+
+function textOf(value: unknown): string {
+  return value === null || value === undefined ? "" : String(value);
+}
+
+/** WorkbookPort over the workbook open in Excel (task pane, shared runtime). */
+export class OfficeWorkbookPort implements WorkbookPort {
+  private readonly chunkBytes: number;
+  private blocks: QueuedBlock[] = [];
+  private names: Record<string, string> = {};
+  /** Sheets prepared through this port: the only ones it writes to. */
+  private readonly ownSheets = new Set<string>();
+
+  constructor(options: OfficePortOptions = {}) {
+    this.chunkBytes = options.chunkBytes ?? DEFAULT_CHUNK_BYTES;
+  }
+
+  /** Three round trips: the lists, then the header rows, then the first rows of used ranges. */
+  async listTables(): Promise<TableInfo[]> {
+    return Excel.run(async (context) => {
+      const tables = context.workbook.tables.load("items/name,items/worksheet/name");
+      const sheets = context.workbook.worksheets.load("items/name");
+      await context.sync();
+      const withTable = new Set(tables.items.map((t) => t.worksheet.name));
+      const headerRanges = tables.items.map((t) => t.getHeaderRowRange().load("values"));
+      const used = sheets.items
+        .filter((ws) => !withTable.has(ws.name))
+        .map((ws) => ({ name: ws.name, range: ws.getUsedRangeOrNullObject(true).load("isNullObject,address") }));
+      await context.sync();
+      const present = used.filter((u) => !u.range.isNullObject);
+      const firstRows = present.map((u) => u.range.getRow(0).load("values"));
+      await context.sync();
+      const out: TableInfo[] = tables.items.map((t, i) => ({
+        name: t.name,
+        sheet: t.worksheet.name,
+        kind: "table" as const,
+        headers: (headerRanges[i]!.values[0] ?? []).map(textOf),
+      }));
+      present.forEach((u, i) => {
+        const headers = (firstRows[i]!.values[0] ?? []).map(textOf);
+        if (headers.some((h) => h !== "")) out.push({ name: u.name, sheet: u.name, kind: "range", headers });
+      });
+      return out;
+    });
+  }
+
+  /** Two round trips: find what the reference names, then read its address and values. */
+  async readTable(ref: string): Promise<RangeData> {
+    return Excel.run(async (context) => {
+      const wb = context.workbook;
+      const typed = splitSheetRef(ref);
+      let range: Excel.Range;
+      if (typed) {
+        range = wb.worksheets.getItem(typed.sheet).getRange(typed.address);
+      } else {
+        const table = wb.tables.getItemOrNullObject(ref).load("isNullObject");
+        const sheet = wb.worksheets.getItemOrNullObject(ref).load("isNullObject");
+        await context.sync();
+        if (!table.isNullObject) range = table.getRange();
+        else if (!sheet.isNullObject) range = sheet.getUsedRange(true);
+        else throw new Error(`No table or sheet named "${ref}" in this workbook.`);
+      }
+      range.load("address,values");
+      await context.sync();
+      const { sheet, top, left } = parseRangeAddress(range.address);
+      return { sheet, top, left, values: range.values.map((row) => row.map(fromExcelValue)) };
+    });
+  }
+
+  async sheetNames(): Promise<string[]> {
+    return Excel.run(async (context) => {
+      const sheets = context.workbook.worksheets.load("items/name");
+      await context.sync();
+      return sheets.items.map((ws) => ws.name);
+    });
+  }
+
+  async sheetMarker(sheet: string): Promise<string | null> {
+    return Excel.run(async (context) => {
+      const found = await this.markerIn(context, sheet);
+      return found.marker;
+    });
+  }
+
+  /** Two round trips to find the sheet and its marker, one to clear or add it and write the marker. */
+  async prepareSheet(sheet: string, marker: string, replaceForeign = false): Promise<void> {
+    await Excel.run(async (context) => {
+      const found = await this.markerIn(context, sheet);
+      if (found.exists && found.marker === null && !replaceForeign) throw new ForeignSheetError(sheet);
+      const sheets = context.workbook.worksheets;
+      const ws = found.exists ? sheets.getItem(sheet) : sheets.add(sheet);
+      if (supports("1.8")) context.runtime.enableEvents = false;
+      if (found.exists) ws.getRange().clear();
+      ws.getRange(MARKER_CELL).values = [[marker]];
+      if (supports("1.8")) context.runtime.enableEvents = true;
+      await context.sync();
+    });
+    this.ownSheets.add(sheet);
+  }
+
+  /** Queued until flush; only sheets prepared through this port can be written. */
+  async writeBlock(sheet: string, top: number, left: number, cells: readonly (readonly CellInput[])[]): Promise<void> {
+    if (!this.ownSheets.has(sheet)) throw new Error(`Loadpath writes only to sheets it prepared; "${sheet}" was not.`);
+    if (top < 0 || left < 0) throw new Error(`writeBlock: top and left must be >= 0 (got ${top}, ${left}).`);
+    this.blocks.push({ sheet, top, left, cells });
+  }
+
+  /** Queued until flush. */
+  async setNames(names: Readonly<Record<string, string>>): Promise<void> {
+    this.names = { ...this.names, ...names };
+  }
+
+  async select(sheet: string, address: string): Promise<void> {
+    await Excel.run(async (context) => {
+      const ws = context.workbook.worksheets.getItem(sheet);
+      ws.activate();
+      ws.getRange(address).select();
+      await context.sync();
+    });
+  }
+
+  async getSetting(key: string): Promise<string | null> {
+    return Excel.run(async (context) => {
+      const item = context.workbook.settings.getItemOrNullObject(key).load("isNullObject,value");
+      await context.sync();
+      return item.isNullObject ? null : textOf(item.value);
+    });
+  }
+
+  async setSetting(key: string, value: string): Promise<void> {
+    await Excel.run(async (context) => {
+      context.workbook.settings.add(key, value);
+      await context.sync();
+    });
+  }
+
+  /**
+   * Send the queued blocks and names: one request per chunk of at most `chunkBytes` (calculation
+   * suspended for each), the names and the restored events in one last request.
+   */
+  async flush(): Promise<void> {
+    const chunks = planChunks(this.blocks, this.chunkBytes);
+    const names = this.names;
+    this.blocks = [];
+    this.names = {};
+    if (chunks.length === 0 && Object.keys(names).length === 0) return;
+    const events = supports("1.8");
+    const suspend = supports("1.6");
+    await Excel.run(async (context) => {
+      const wb = context.workbook;
+      if (events) context.runtime.enableEvents = false;
+      const existing = wb.names.load("items/name");
+      try {
+        for (const chunk of chunks.length > 0 ? chunks : [[]]) {
+          if (suspend) wb.application.suspendApiCalculationUntilNextSync();
+          for (const w of chunk) wb.worksheets.getItem(w.sheet).getRangeByIndexes(w.top, w.left, w.rows, w.cols).formulas = w.formulas;
+          await context.sync();
+        }
+        const taken = new Set(existing.items.map((n) => n.name.toUpperCase()));
+        for (const [name, ref] of Object.entries(names)) {
+          if (taken.has(name.toUpperCase())) wb.names.getItem(name).delete();
+          wb.names.add(name, ref.startsWith("=") ? ref : "=" + ref);
+        }
+      } finally {
+        if (events) context.runtime.enableEvents = true;
+        await context.sync();
+      }
+    });
+  }
+
+  /** Whether the sheet exists and the marker on it (two round trips). */
+  private async markerIn(context: Excel.RequestContext, sheet: string): Promise<{ exists: boolean; marker: string | null }> {
+    const ws = context.workbook.worksheets.getItemOrNullObject(sheet).load("isNullObject");
+    await context.sync();
+    if (ws.isNullObject) return { exists: false, marker: null };
+    const cell = ws.getRange(MARKER_CELL).load("values");
+    await context.sync();
+    const text = textOf(cell.values[0]?.[0]);
+    return { exists: true, marker: text.startsWith(GENERATED_MARKER) ? text : null };
+  }
+}

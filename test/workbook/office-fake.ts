@@ -1,0 +1,294 @@
+/**
+ * A small Excel object model for testing the Office.js adapter under vitest, built from
+ * office-addin-mock objects (so a property read without load() + sync() reads as an error
+ * string, as the real API would fail). Behind it sits a plain workbook (sheets of cells, tables,
+ * names, settings) that queued operations change only when `context.sync()` runs, in queue order.
+ * The fake counts syncs and records every write with the state of events and calculation.
+ */
+import { OfficeMockObject } from "office-addin-mock";
+import { cellAddress, parseCell, sheetRef } from "../../src/workbook/a1";
+
+type Raw = string | number | boolean;
+
+export interface FakeTable {
+  readonly name: string;
+  readonly sheet: string;
+  /** Header row and body as the user typed them. */
+  readonly rows: readonly (readonly Raw[])[];
+  /** Top-left cell, "A1" by default. */
+  readonly at?: string;
+}
+
+/** One range write seen by the host. */
+export interface WriteRecord {
+  readonly sheet: string;
+  readonly top: number;
+  readonly left: number;
+  readonly rows: number;
+  readonly cols: number;
+  readonly kind: "formulas" | "values";
+  /** Sync (1-based) whose request carried it. */
+  readonly sync: number;
+  /** Were events on when it was applied? */
+  readonly eventsOn: boolean;
+  /** Had calculation been suspended in this request? */
+  readonly calcSuspended: boolean;
+  /** JSON size of the written array, a stand-in for the request payload. */
+  readonly bytes: number;
+}
+
+interface Rect {
+  sheet: string;
+  top: number;
+  left: number;
+  rows: number;
+  cols: number;
+}
+
+type Op = () => void;
+
+/** The backend workbook plus the fake `Excel` global over it. */
+export class FakeExcel {
+  readonly sheets = new Map<string, Map<string, unknown>>();
+  readonly tables: FakeTable[] = [];
+  readonly names = new Map<string, string>();
+  readonly settings = new Map<string, unknown>();
+  readonly writes: WriteRecord[] = [];
+  readonly cleared: string[] = [];
+  readonly addedSheets: string[] = [];
+  syncs = 0;
+  selection: { sheet: string; address: string } | null = null;
+  activeSheet: string | null = null;
+  eventsOn = true;
+  private queue: Op[] = [];
+  private mocks: OfficeMockObject[] = [];
+  private suspendedThisBatch = false;
+
+  constructor(sheets: Readonly<Record<string, readonly (readonly Raw[])[]>>, tables: readonly FakeTable[] = []) {
+    for (const [name, rows] of Object.entries(sheets)) {
+      const cells = new Map<string, unknown>();
+      rows.forEach((row, r) => row.forEach((v, c) => v !== "" && cells.set(`${r},${c}`, v)));
+      this.sheets.set(name, cells);
+    }
+    for (const t of tables) {
+      this.tables.push(t);
+      const { row, col } = parseCell(t.at ?? "A1");
+      const cells = this.sheets.get(t.sheet) ?? new Map<string, unknown>();
+      this.sheets.set(t.sheet, cells);
+      t.rows.forEach((r, i) => r.forEach((v, j) => v !== "" && cells.set(`${row + i},${col + j}`, v)));
+    }
+  }
+
+  /** Cell content (formulas with their "=") or undefined when blank. */
+  cell(sheet: string, address: string): unknown {
+    const { row, col } = parseCell(address);
+    return this.sheets.get(sheet)?.get(`${row},${col}`);
+  }
+
+  /** A snapshot of one sheet's cells, to check nothing changed. */
+  snapshot(sheet: string): string {
+    return JSON.stringify([...(this.sheets.get(sheet) ?? new Map()).entries()].sort());
+  }
+
+  /** The global to stub as `Excel`. */
+  excel(): unknown {
+    return { run: async <T>(batch: (context: unknown) => Promise<T>): Promise<T> => batch(this.context()) };
+  }
+
+  private context(): unknown {
+    const fake = this;
+    const runtime = {
+      get enableEvents() {
+        return fake.eventsOn;
+      },
+      set enableEvents(on: boolean) {
+        fake.queue.push(() => (fake.eventsOn = on));
+      },
+    };
+    return {
+      runtime,
+      workbook: this.workbook(),
+      sync: async () => {
+        this.syncs++;
+        const ops = this.queue;
+        this.queue = [];
+        for (const op of ops) op();
+        this.suspendedThisBatch = false;
+        for (const m of this.mocks) await m.sync();
+      },
+    };
+  }
+
+  private track<T extends object>(data: Record<string, unknown>): T {
+    const mock = new OfficeMockObject(data);
+    this.mocks.push(mock);
+    return mock as unknown as T;
+  }
+
+  /** A mock collection whose load("items/a,items/b/c") loads those paths on every item. */
+  private collection(items: () => OfficeMockObject[], methods: Record<string, unknown>): unknown {
+    const coll = this.track<OfficeMockObject>({ items: [] as unknown[] });
+    Object.assign(coll, methods);
+    // setValue is private in the typings but is how office-addin-mock stores a property.
+    const open = coll as unknown as { setValue(name: string, value: unknown): void; load: (arg?: string) => unknown };
+    open.load = (arg?: string) => {
+      const list = items();
+      open.setValue("items", list);
+      OfficeMockObject.prototype.load.call(coll, "items");
+      const paths = (arg ?? "").split(",").map((p) => p.trim()).filter((p) => p.startsWith("items/"));
+      for (const item of list) for (const p of paths) item.load(p.slice("items/".length));
+      return coll;
+    };
+    return coll;
+  }
+
+  private workbook(): unknown {
+    const fake = this;
+    return {
+      application: {
+        suspendApiCalculationUntilNextSync: () => fake.queue.push(() => (fake.suspendedThisBatch = true)),
+      },
+      tables: this.collection(
+        () => fake.tables.map((t) => fake.tableMock(t)),
+        {
+          getItemOrNullObject: (name: string) => {
+            const t = fake.tables.find((x) => x.name.toLowerCase() === name.toLowerCase());
+            return t ? fake.tableMock(t) : fake.track({ isNullObject: true });
+          },
+        },
+      ),
+      worksheets: this.collection(
+        () => [...fake.sheets.keys()].map((n) => fake.sheetMock(n)),
+        {
+          getItem: (name: string) => {
+            if (!fake.sheets.has(name) && !fake.addedSheets.includes(name)) throw new Error(`ItemNotFound: ${name}`);
+            return fake.sheetMock(name);
+          },
+          getItemOrNullObject: (name: string) => (fake.sheets.has(name) ? fake.sheetMock(name) : fake.track({ isNullObject: true })),
+          add: (name: string) => {
+            fake.addedSheets.push(name);
+            fake.queue.push(() => fake.sheets.set(name, new Map()));
+            return fake.sheetMock(name);
+          },
+        },
+      ),
+      names: this.collection(
+        () => [...fake.names.keys()].map((n) => fake.track({ name: n })),
+        {
+          add: (name: string, ref: string) => fake.queue.push(() => fake.names.set(name, ref)),
+          getItem: (name: string) => ({ delete: () => fake.queue.push(() => fake.names.delete(name)) }),
+        },
+      ),
+      settings: {
+        add: (key: string, value: unknown) => fake.queue.push(() => fake.settings.set(key, value)),
+        getItemOrNullObject: (key: string) =>
+          fake.track(fake.settings.has(key) ? { isNullObject: false, value: fake.settings.get(key) } : { isNullObject: true, value: "" }),
+      },
+    };
+  }
+
+  private tableMock(t: FakeTable): OfficeMockObject {
+    const { row, col } = parseCell(t.at ?? "A1");
+    const width = t.rows[0]?.length ?? 0;
+    const whole: Rect = { sheet: t.sheet, top: row, left: col, rows: t.rows.length, cols: width };
+    return this.track({
+      isNullObject: false,
+      name: t.name,
+      worksheet: { name: t.sheet },
+      getRange: () => this.rangeMock(whole),
+      getHeaderRowRange: () => this.rangeMock({ ...whole, rows: 1 }),
+    });
+  }
+
+  private sheetMock(name: string): OfficeMockObject {
+    const fake = this;
+    return this.track({
+      isNullObject: false,
+      name,
+      activate: () => fake.queue.push(() => (fake.activeSheet = name)),
+      getRange: (address?: string) => fake.rangeMock(address === undefined ? { sheet: name, top: 0, left: 0, rows: 1048576, cols: 16384 } : rectOf(name, address)),
+      getRangeByIndexes: (top: number, left: number, rows: number, cols: number) => fake.rangeMock({ sheet: name, top, left, rows, cols }),
+      getUsedRange: () => fake.rangeMock(fake.usedRect(name) ?? { sheet: name, top: 0, left: 0, rows: 1, cols: 1 }),
+      getUsedRangeOrNullObject: () => {
+        const used = fake.usedRect(name);
+        return used ? fake.rangeMock(used) : fake.track({ isNullObject: true, address: "" });
+      },
+    });
+  }
+
+  private usedRect(sheet: string): Rect | null {
+    const keys = [...(this.sheets.get(sheet) ?? new Map()).keys()].map((k) => k.split(",").map(Number) as [number, number]);
+    if (keys.length === 0) return null;
+    const top = Math.min(...keys.map((k) => k[0]));
+    const left = Math.min(...keys.map((k) => k[1]));
+    const bottom = Math.max(...keys.map((k) => k[0]));
+    const right = Math.max(...keys.map((k) => k[1]));
+    return { sheet, top, left, rows: bottom - top + 1, cols: right - left + 1 };
+  }
+
+  private valuesOf(r: Rect): unknown[][] {
+    const cells = this.sheets.get(r.sheet) ?? new Map<string, unknown>();
+    if (r.rows * r.cols > 2_000_000) return []; // whole-sheet ranges are only cleared, never read
+    return Array.from({ length: r.rows }, (_, i) =>
+      Array.from({ length: r.cols }, (_, j) => {
+        const v = cells.get(`${r.top + i},${r.left + j}`);
+        return v === undefined ? "" : typeof v === "string" && v.startsWith("=") ? 0 : v;
+      }),
+    );
+  }
+
+  /** A range mock; assignments to `formulas`/`values` are queued as writes, `clear()` as a clear. */
+  private rangeMock(r: Rect): OfficeMockObject {
+    const fake = this;
+    const address = `${sheetRef(r.sheet)}!${cellAddress(r.top, r.left)}${r.rows * r.cols > 1 ? ":" + cellAddress(r.top + r.rows - 1, r.left + r.cols - 1) : ""}`;
+    const mock = this.track<OfficeMockObject>({
+      isNullObject: false,
+      address,
+      values: this.valuesOf(r),
+      select: () => fake.queue.push(() => (fake.selection = { sheet: r.sheet, address: address.split("!")[1]! })),
+      clear: () =>
+        fake.queue.push(() => {
+          fake.cleared.push(r.sheet);
+          fake.sheets.set(r.sheet, new Map());
+        }),
+      getRow: (i: number) => fake.rangeMock({ ...r, top: r.top + i, rows: 1 }),
+    });
+    return new Proxy(mock, {
+      get(target, prop) {
+        const v = (target as unknown as Record<string | symbol, unknown>)[prop];
+        return typeof v === "function" ? (v as (...a: unknown[]) => unknown).bind(target) : v;
+      },
+      set(target, prop, value) {
+        if (prop === "formulas" || prop === "values") {
+          const data = value as unknown[][];
+          fake.queue.push(() => fake.apply(r, data, prop));
+          return true;
+        }
+        (target as unknown as Record<string | symbol, unknown>)[prop] = value;
+        return true;
+      },
+    });
+  }
+
+  private apply(r: Rect, data: unknown[][], kind: "formulas" | "values"): void {
+    if (data.length !== r.rows || data.some((row) => row.length !== r.cols)) throw new Error(`InvalidArgument: ${data.length}x${data[0]?.length} into ${r.rows}x${r.cols}`);
+    const cells = this.sheets.get(r.sheet);
+    if (!cells) throw new Error(`ItemNotFound: ${r.sheet}`);
+    data.forEach((row, i) =>
+      row.forEach((v, j) => {
+        if (v === null) return;
+        const key = `${r.top + i},${r.left + j}`;
+        if (v === "") cells.delete(key);
+        else cells.set(key, v);
+      }),
+    );
+    this.writes.push({ ...r, kind, sync: this.syncs, eventsOn: this.eventsOn, calcSuspended: this.suspendedThisBatch, bytes: JSON.stringify(data).length });
+  }
+}
+
+function rectOf(sheet: string, address: string): Rect {
+  const [a, b] = address.replace(/\$/g, "").split(":");
+  const p = parseCell(a!);
+  const q = parseCell(b ?? a!);
+  return { sheet, top: p.row, left: p.col, rows: q.row - p.row + 1, cols: q.col - p.col + 1 };
+}
