@@ -344,11 +344,16 @@ export function coerceArg(spec: ArgSpec, raw: unknown): Result<unknown> {
   }
 }
 
+/** -0 reads as "-0" in some hosts; every zero goes out as 0. */
+function plainZero<T>(v: T): T {
+  return (v === 0 ? 0 : v) as T;
+}
+
 function finiteOutput(value: FunctionOutput): FunctionOutput | CustomFunctions.Error {
-  if (typeof value === "number") return Number.isFinite(value) ? value : nonFiniteError("The result");
+  if (typeof value === "number") return Number.isFinite(value) ? plainZero(value) : nonFiniteError("The result");
   if (typeof value === "string") return value;
   const bad = value.some((row) => row.some((c) => typeof c === "number" && !Number.isFinite(c)));
-  return bad ? nonFiniteError("A value of the result") : value;
+  return bad ? nonFiniteError("A value of the result") : value.map((row) => row.map(plainZero));
 }
 
 /**
@@ -378,4 +383,21 @@ export function runFunction<const S extends readonly ArgSpec[], T extends Functi
   } catch (cause) {
     return internalError(cause);
   }
+}
+
+/**
+ * A scalar function's result as its declaration reads it (`number`, for the metadata
+ * generator); the host accepts an error value in place of any result.
+ */
+export function asHostNumber(result: number | CustomFunctions.Error): number {
+  return result as number;
+}
+
+/**
+ * A spilling function's result as its declaration reads it (`any[][]`, for the metadata
+ * generator); the host accepts an error value in place of any result.
+ */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export function asHostMatrix(result: (number | string)[][] | CustomFunctions.Error): any[][] {
+  return result as (number | string)[][];
 }
