@@ -163,8 +163,8 @@ function allowableStressCombinations(): Combination[] {
   ];
 }
 
-const STRENGTH = { plain: strengthCombinations(false), halfLive: strengthCombinations(true) };
-const ALLOWABLE = allowableStressCombinations();
+const STRENGTH = { plain: Object.freeze(strengthCombinations(false)), halfLive: Object.freeze(strengthCombinations(true)) };
+const ALLOWABLE = Object.freeze(allowableStressCombinations());
 
 /**
  * The expanded combination list of a method (same rows, in the standard's order, for any load
