@@ -5,3 +5,4 @@
  * This bundle must never import HyperFormula or anything from Node (it runs in the host).
  */
 import "./beam-functions";
+import "./load-functions";

@@ -7,6 +7,8 @@
  * One rule per spilling function id. A new spilling function adds one entry to {@link SPILL_RULES}.
  */
 
+import { COMBINATION_ROWS_MAX } from "../engine/loads/combinations";
+
 /** Most load rows accepted by the beam functions. */
 export const MAX_LOAD_ROWS = 1000;
 /** Most support rows accepted by the beam functions. */
@@ -89,10 +91,16 @@ export function diagramSize(args: readonly (ArgShape | undefined)[]): SpillSize 
   return { rows: diagramRowBound(loadRows, supportRows, diagramStationsForSize(args[3])), cols: 3 };
 }
 
+/** COMBOS(D, ...): label | value, one row per combination of the longer method's list (ASD pads with ""). */
+export function combosSize(): SpillSize {
+  return { rows: COMBINATION_ROWS_MAX, cols: 2 };
+}
+
 /** Spill rules by function id (without the namespace). */
 export const SPILL_RULES: Readonly<Record<string, SpillRule>> = {
   REACTIONS: reactionsSize,
   DIAGRAM: diagramSize,
+  COMBOS: combosSize,
 };
 
 /**
