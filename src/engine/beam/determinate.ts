@@ -3,19 +3,17 @@
  * are known from statics, so one march from x = 0 with zero initial slope and deflection gives
  * the shape up to a rigid-body motion, which the support conditions then fix.
  */
-import { SUPPORT_STRIDE, type PackedModel } from "./packed";
-import {
-  addRigidMotion,
-  breakpointIndex,
-  buildSegments,
-  loadJumps,
-  march,
-  reactionJumps,
-  riseAtBreakpoint,
-  slopeAtBreakpoint,
-  type Piecewise,
-} from "./piecewise";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
+import * as piecewise from "./piecewise";
+import type { Piecewise } from "./piecewise";
 import type { SupportLayout } from "./stability";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { SUPPORT_STRIDE } = packed;
+const { addRigidMotion, breakpointIndex, buildSegments, loadJumps, march, reactionJumps, riseAtBreakpoint, slopeAtBreakpoint } = piecewise;
 
 /**
  * Builds the piecewise solution for known reactions.

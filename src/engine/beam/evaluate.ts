@@ -2,7 +2,13 @@
  * Values of the segment polynomials (see piecewise.ts) at local coordinate t, and the lookup of
  * the segment that holds a position, on either side of a breakpoint.
  */
-import { SEG_STRIDE, type Piecewise } from "./piecewise";
+import * as piecewise from "./piecewise";
+import type { Piecewise } from "./piecewise";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { SEG_STRIDE } = piecewise;
 
 /** Start index of segment k's numbers in pw.buf. */
 export function segStart(pw: Piecewise, k: number): number {
@@ -10,27 +16,27 @@ export function segStart(pw: Piecewise, k: number): number {
 }
 
 /** Load intensity (down +) at t in the segment starting at s. */
-export function qAt(buf: Float64Array, s: number, t: number): number {
+export function qAt(buf: readonly number[], s: number, t: number): number {
   return buf[s] + buf[s + 1] * t;
 }
 
 /** Shear at t in the segment starting at s. */
-export function shearIn(buf: Float64Array, s: number, t: number): number {
+export function shearIn(buf: readonly number[], s: number, t: number): number {
   return buf[s + 2] - t * (buf[s] + (t * buf[s + 1]) / 2);
 }
 
 /** Bending moment (sagging +) at t in the segment starting at s. */
-export function momentIn(buf: Float64Array, s: number, t: number): number {
+export function momentIn(buf: readonly number[], s: number, t: number): number {
   return buf[s + 3] + t * (buf[s + 2] - t * (buf[s] / 2 + (t * buf[s + 1]) / 6));
 }
 
 /** EI times the rotation (counter-clockwise +) at t in the segment starting at s. */
-export function slopeIn(buf: Float64Array, s: number, t: number): number {
+export function slopeIn(buf: readonly number[], s: number, t: number): number {
   return buf[s + 4] + t * (buf[s + 3] + t * (buf[s + 2] / 2 - t * (buf[s] / 6 + (t * buf[s + 1]) / 24)));
 }
 
 /** EI times the upward displacement at t in the segment starting at s. */
-export function riseIn(buf: Float64Array, s: number, t: number): number {
+export function riseIn(buf: readonly number[], s: number, t: number): number {
   return buf[s + 5] + t * (buf[s + 4] + t * (buf[s + 3] / 2 + t * (buf[s + 2] / 6 - t * (buf[s] / 24 + (t * buf[s + 1]) / 120))));
 }
 

@@ -3,10 +3,16 @@
  * breakpoint and the interior stationary points: roots of V for the moment, roots of q for the
  * shear, roots of the slope for the deflection, each found on the exact segment polynomial.
  */
-import { momentIn, riseIn, segStart, shearIn } from "./evaluate";
+import * as evaluate from "./evaluate";
 import type { Piecewise } from "./piecewise";
-import { rootsInInterval } from "./roots";
+import * as roots from "./roots";
 import type { Extreme } from "./types";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { momentIn, riseIn, segStart, shearIn } = evaluate;
+const { rootsInInterval } = roots;
 
 /**
  * Two candidates whose values differ by less than this fraction count as equal; the leftmost is
@@ -49,6 +55,10 @@ class Tracker {
   negative(): Extreme {
     return this.minValue < -RELATIVE_NOISE * this.scale() ? { value: this.minValue, x: this.minX } : { value: 0, x: 0 };
   }
+}
+
+function ascending(p: number, q: number): number {
+  return p - q;
 }
 
 /** Interior roots are kept only this far (relative to the span) from a segment's ends. */
@@ -120,23 +130,24 @@ export function shearExtreme(pw: Piecewise): Extreme {
   const buf = pw.buf;
   let best = 0;
   let bestX = 0;
-  let scale = 0;
-  const see = (v: number, x: number): void => {
-    const a = Math.abs(v);
-    if (a - scale > RELATIVE_NOISE * a) {
-      scale = a;
-      best = v;
-      bestX = x;
-    }
-  };
+  let largest = 0;
   for (let k = 0; k < pw.n; k++) {
     const s = segStart(pw, k);
     const x0 = buf[k];
     const h = buf[k + 1] - x0;
-    see(buf[s + 2], x0);
     const t = loadRoot(pw, k);
-    if (t >= 0) see(shearIn(buf, s, t), x0 + t);
-    see(shearIn(buf, s, h), buf[k + 1]);
+    for (let c = 0; c < 3; c++) {
+      // candidates left to right: start (right of x0), root of q, end (left of the next breakpoint)
+      if (c === 1 && t < 0) continue;
+      const tc = c === 0 ? 0 : c === 1 ? t : h;
+      const v = c === 0 ? buf[s + 2] : shearIn(buf, s, tc);
+      const a = Math.abs(v);
+      if (a - largest > RELATIVE_NOISE * a) {
+        largest = a;
+        best = v;
+        bestX = c === 2 ? buf[k + 1] : x0 + tc;
+      }
+    }
   }
   return { value: best, x: bestX };
 }
@@ -175,7 +186,7 @@ export function criticalPositions(pw: Piecewise): number[] {
     if (t >= 0) local.push(t);
     nr = slopeRoots(pw, k, tmp);
     for (let i = 0; i < nr; i++) local.push(tmp[i]);
-    local.sort((p, q) => p - q);
+    local.sort(ascending);
     let last = -Infinity;
     for (const r of local) {
       if (r - last > gap) out.push(buf[k] + r);

@@ -5,22 +5,24 @@
  * zero deflection at every support, zero rotation at every fixed support. Lengths are scaled by
  * the span so that every coefficient is of order one.
  */
-import { solveInPlace } from "./linear-solve";
-import { SUPPORT_STRIDE, TYPE_FIXED, type PackedModel } from "./packed";
-import {
-  breakpointIndex,
-  buildSegments,
-  loadJumps,
-  march,
-  marchEnd,
-  reactionJumps,
-  riseAtBreakpoint,
-  slopeAtBreakpoint,
-  type Piecewise,
-} from "./piecewise";
+import * as linearSolve from "./linear-solve";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
+import * as piecewise from "./piecewise";
+import type { Piecewise } from "./piecewise";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { solveInPlace } = linearSolve;
+const { SUPPORT_STRIDE, TYPE_FIXED } = packed;
+const { breakpointIndex, buildSegments, loadJumps, march, marchEnd, reactionJumps, riseAtBreakpoint, slopeAtBreakpoint } = piecewise;
 
 /** Pivot tolerance relative to the largest (order one) coefficient. */
 const PIVOT_TOLERANCE = 1e-13;
+
+let matrix = new Float64Array(64);
+let rhs = new Float64Array(8);
 
 /** Reactions, reaction couples and the finished piecewise solution. */
 export interface IndeterminateSolution {
@@ -39,39 +41,38 @@ function fixedList(pm: PackedModel): number[] {
 function assemble(pm: PackedModel, fixed: number[], a: Float64Array, m: number): void {
   const n = pm.supportCount;
   const L = pm.span;
-  const sHat = (i: number): number => pm.supports[i * SUPPORT_STRIDE] / L;
-  const cCol = (j: number): number => n + j;
-  const t0Col = n + fixed.length;
+  const sup = pm.supports;
+  const t0Col = n + fixed.length; // columns: reactions, couples (scaled by 1/L), EIθ(0)/L^2, EIy(0)/L^3
   const y0Col = t0Col + 1;
   for (let i = 0; i < n; i++) {
     a[i] = 1; // row 0: sum of reactions
-    a[m + i] = 1 - sHat(i); // row 1: moment just past the right end / L
+    a[m + i] = 1 - sup[i * SUPPORT_STRIDE] / L; // row 1: moment just past the right end / L
   }
-  for (let j = 0; j < fixed.length; j++) a[m + cCol(j)] = -1;
+  for (let j = 0; j < fixed.length; j++) a[m + n + j] = -1;
   for (let k = 0; k < n; k++) {
     const row = (2 + k) * m; // EIy(s_k) / L^3 = 0
-    const sk = sHat(k);
+    const sk = sup[k * SUPPORT_STRIDE] / L;
     for (let i = 0; i < n; i++) {
-      const u = sk - sHat(i);
+      const u = sk - sup[i * SUPPORT_STRIDE] / L;
       if (u > 0) a[row + i] = (u * u * u) / 6;
     }
     for (let j = 0; j < fixed.length; j++) {
-      const u = sk - sHat(fixed[j]);
-      if (u > 0) a[row + cCol(j)] = (-u * u) / 2;
+      const u = sk - sup[fixed[j] * SUPPORT_STRIDE] / L;
+      if (u > 0) a[row + n + j] = (-u * u) / 2;
     }
     a[row + t0Col] = sk;
     a[row + y0Col] = 1;
   }
   for (let f = 0; f < fixed.length; f++) {
     const row = (2 + n + f) * m; // EIθ(s_f) / L^2 = 0
-    const sk = sHat(fixed[f]);
+    const sk = sup[fixed[f] * SUPPORT_STRIDE] / L;
     for (let i = 0; i < n; i++) {
-      const u = sk - sHat(i);
+      const u = sk - sup[i * SUPPORT_STRIDE] / L;
       if (u > 0) a[row + i] = (u * u) / 2;
     }
     for (let j = 0; j < fixed.length; j++) {
-      const u = sk - sHat(fixed[j]);
-      if (u > 0) a[row + cCol(j)] = -u;
+      const u = sk - sup[fixed[j] * SUPPORT_STRIDE] / L;
+      if (u > 0) a[row + n + j] = -u;
     }
     a[row + t0Col] = 1;
   }
@@ -90,8 +91,13 @@ export function solveIndeterminate(pm: PackedModel): IndeterminateSolution | nul
   const pw = buildSegments(pm);
   loadJumps(pw, pm);
   march(pw, 0, 0);
-  const a = new Float64Array(m * m);
-  const b = new Float64Array(m);
+  if (matrix.length < m * m) {
+    matrix = new Float64Array(m * m);
+    rhs = new Float64Array(m);
+  }
+  const a = matrix;
+  const b = rhs;
+  for (let i = 0; i < m * m; i++) a[i] = 0;
   assemble(pm, fixed, a, m);
   b[0] = -marchEnd[0];
   b[1] = -marchEnd[1] / L;

@@ -3,16 +3,26 @@
  * (uniform, trapezoidal, triangular, full or partial), point loads and couples. Conventions and
  * units: see types.ts (design.md section 3); any consistent units.
  */
-import { fail, ok, type Result } from "../errors";
-import { solveIndeterminate } from "./indeterminate";
-import { PackedBeamSolution } from "./solution";
-import { classifySupports } from "./stability";
-import { cantileverReactions, twoPinReactions } from "./statics";
+import * as errors from "../errors";
+import type { Result } from "../errors";
+import * as indeterminate from "./indeterminate";
+import * as solution from "./solution";
+import * as stability from "./stability";
+import * as statics from "./statics";
 import type { BeamModel, BeamSolution } from "./types";
-import { packModel } from "./validate";
+import * as validate from "./validate";
 
 export type { BeamLoad, BeamModel, BeamSolution, Extreme, LineLoad, MomentLoad, PointLoad, Support, SupportType } from "./types";
 export { MAX_LOADS, MAX_SUPPORTS } from "./validate";
+
+// Module-level aliases of imported bindings: when the sources are run as CommonJS (tsx, ts-node)
+// every imported binding is read through an accessor, which costs more than solving a simple span.
+const { fail, ok } = errors;
+const { solveIndeterminate } = indeterminate;
+const { PackedBeamSolution } = solution;
+const { classifySupports } = stability;
+const { cantileverReactions, twoPinReactions } = statics;
+const { packModel } = validate;
 
 /**
  * Solves one straight member with constant EI by the piecewise closed-form solution.

@@ -1,7 +1,16 @@
 /**
- * The solver's private copy of a validated model: flat typed arrays, so that solving allocates
- * little and never keeps a reference to the caller's objects.
+ * The solver's private copy of a validated model: flat arrays of numbers, so that solving
+ * allocates little and never keeps a reference to the caller's objects. (Plain arrays, not typed
+ * arrays: a typed array of more than 64 bytes gets an off-heap buffer whose allocation and
+ * collection cost more than the whole solve of a simple span.)
  */
+
+/** A fresh array of n numbers, all 0, stored as doubles. */
+export function doubles(n: number): number[] {
+  const a = new Array<number>(n);
+  for (let i = 0; i < n; i++) a[i] = 0;
+  return a;
+}
 
 /** Numbers stored per load: kind code, start, end, first magnitude, second magnitude. */
 export const LOAD_STRIDE = 5;
@@ -26,8 +35,8 @@ export interface PackedModel {
   readonly span: number;
   readonly loadCount: number;
   readonly supportCount: number;
-  /** LOAD_STRIDE numbers per load. */
-  readonly loads: Float64Array;
+  /** LOAD_STRIDE numbers per load (a plain array: small young objects are cheaper than buffers). */
+  readonly loads: readonly number[];
   /** SUPPORT_STRIDE numbers per support, in the order given. */
-  readonly supports: Float64Array;
+  readonly supports: readonly number[];
 }

@@ -13,7 +13,13 @@
  * the right of its breakpoint; a downward force P at x makes V jump by -P, an upward reaction R by
  * +R, and a counter-clockwise couple m (applied or reaction) makes M jump by -m.
  */
-import { KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE, type PackedModel } from "./packed";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { doubles, KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE } = packed;
 
 /** Numbers stored per segment: q0, q1, V0, M0, T0 (EIθ), Y0 (EIy). */
 export const SEG_STRIDE = 6;
@@ -23,7 +29,7 @@ export interface Piecewise {
   /** Number of segments (breakpoints - 1), at least 1. */
   readonly n: number;
   /** buf[0..n] = sorted unique breakpoints; segment k's numbers start at segOffset + 6k. */
-  readonly buf: Float64Array;
+  readonly buf: number[];
   readonly segOffset: number;
 }
 
@@ -36,7 +42,7 @@ function ensureScratch(size: number): void {
 }
 
 /** Index of x among the breakpoints buf[0..count-1] (x must be one of them). */
-export function breakpointIndex(buf: Float64Array, count: number, x: number): number {
+export function breakpointIndex(buf: readonly number[], count: number, x: number): number {
   let lo = 0;
   let hi = count - 1;
   while (lo < hi) {
@@ -85,7 +91,7 @@ function allocate(count: number): Piecewise {
   let unique = 1;
   for (let i = 1; i < count; i++) if (scratch[i] !== scratch[unique - 1]) scratch[unique++] = scratch[i];
   const n = unique - 1;
-  const buf = new Float64Array(unique + SEG_STRIDE * n);
+  const buf = doubles(unique + SEG_STRIDE * n);
   for (let i = 0; i < unique; i++) buf[i] = scratch[i];
   return { n, buf, segOffset: unique };
 }
@@ -131,8 +137,10 @@ export function loadJumps(pw: Piecewise, pm: PackedModel): void {
     jumpV = new Float64Array(size * 2);
     jumpM = new Float64Array(size * 2);
   } else {
-    jumpV.fill(0, 0, size);
-    jumpM.fill(0, 0, size);
+    for (let i = 0; i < size; i++) {
+      jumpV[i] = 0;
+      jumpM[i] = 0;
+    }
   }
   const d = pm.loads;
   for (let o = 0; o < pm.loadCount * LOAD_STRIDE; o += LOAD_STRIDE) {

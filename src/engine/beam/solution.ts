@@ -3,14 +3,24 @@
  * polynomials of a determinate member, every extreme, the critical points and the copy of the
  * model are computed on first request and cached.
  */
-import { buildDeterminate } from "./determinate";
-import { momentIn, riseIn, segmentOf, segStart, shearIn, slopeIn } from "./evaluate";
-import { criticalPositions, deflectionExtremes, momentExtremes, shearExtreme } from "./extremes";
-import { KIND_LINE, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE, TYPE_FIXED, type PackedModel } from "./packed";
+import * as determinate from "./determinate";
+import * as evaluate from "./evaluate";
+import * as extremes from "./extremes";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
 import type { Piecewise } from "./piecewise";
 import type { SupportLayout } from "./stability";
-import { POSITION_TOLERANCE } from "./validate";
+import * as validate from "./validate";
 import type { BeamLoad, BeamModel, BeamSolution, Extreme, Support } from "./types";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { momentIn, riseIn, segmentOf, segStart, shearIn, slopeIn } = evaluate;
+const { criticalPositions, deflectionExtremes, momentExtremes, shearExtreme } = extremes;
+const { KIND_LINE, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE, TYPE_FIXED } = packed;
+const { buildDeterminate } = determinate;
+const { POSITION_TOLERANCE } = validate;
 
 function unpack(pm: PackedModel): BeamModel {
   const loads: BeamLoad[] = [];

@@ -4,7 +4,13 @@
  * cannot share their reaction in a determined way and are reported rather than guessed at.
  */
 import { fail, type Result } from "../errors";
-import { SUPPORT_STRIDE, TYPE_FIXED, type PackedModel } from "./packed";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { SUPPORT_STRIDE, TYPE_FIXED } = packed;
 
 /** How the reactions are found. */
 export type SupportLayout =

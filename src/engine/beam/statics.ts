@@ -2,7 +2,13 @@
  * Reactions of the statically determinate layouts (two pins; one fixed support) from
  * equilibrium alone: no matrix, no allocation beyond the result arrays.
  */
-import { KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE, type PackedModel } from "./packed";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE } = packed;
 
 /** Total downward load (force). */
 export function totalLoad(pm: PackedModel): number {

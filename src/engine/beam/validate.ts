@@ -2,18 +2,17 @@
  * Input checks of the single-member solver. Every failure names its argument and, for the
  * `loads` and `supports` lists, the 1-based row (index + 1), as design.md asks.
  */
-import { fail, ok, type Result } from "../errors";
-import {
-  KIND_LINE,
-  KIND_MOMENT,
-  KIND_POINT,
-  LOAD_STRIDE,
-  SUPPORT_STRIDE,
-  TYPE_FIXED,
-  TYPE_PIN,
-  type PackedModel,
-} from "./packed";
+import * as errors from "../errors";
+import type { Result } from "../errors";
+import * as packed from "./packed";
+import type { PackedModel } from "./packed";
 import type { BeamModel } from "./types";
+
+// Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
+// (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
+// arithmetic around it. Reading each once at load keeps the loops to plain local constants.
+const { fail, ok } = errors;
+const { doubles, KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE, TYPE_FIXED, TYPE_PIN } = packed;
 
 /** Most loads one member may carry. */
 export const MAX_LOADS = 1000;
@@ -58,7 +57,7 @@ function checkMagnitude(v: unknown, name: string, row: number): Failure | null {
 }
 
 /** Validates one load and writes it at `o` in `out`; returns the failure or null. */
-function packLoad(load: unknown, row: number, span: number, out: Float64Array, o: number): Failure | null {
+function packLoad(load: unknown, row: number, span: number, out: number[], o: number): Failure | null {
   if (typeof load !== "object" || load === null) return fail("unknownKind", `expected a load (line, point or moment); got ${describe(load)}.`, "loads", row);
   const l = load as Record<string, unknown>;
   const kind = l.kind;
@@ -93,7 +92,7 @@ function packLoad(load: unknown, row: number, span: number, out: Float64Array, o
   return fail("unknownKind", `kind ${describe(kind)} is not one of line, point, moment.`, "loads", row);
 }
 
-function packSupport(support: unknown, row: number, span: number, out: Float64Array, o: number): Failure | null {
+function packSupport(support: unknown, row: number, span: number, out: number[], o: number): Failure | null {
   if (typeof support !== "object" || support === null) return fail("unknownSupportType", `expected a support (position and type); got ${describe(support)}.`, "supports", row);
   const s = support as Record<string, unknown>;
   const e = checkPosition(s.x, "position", span, "supports", row);
@@ -124,12 +123,12 @@ export function packModel(model: BeamModel): Result<PackedModel> {
   if (!Array.isArray(supports)) return fail("badShape", "must be a list of supports.", "supports");
   if (loads.length > MAX_LOADS) return fail("tooManyRows", `${loads.length} loads given; at most ${MAX_LOADS} are allowed.`, "loads");
   if (supports.length > MAX_SUPPORTS) return fail("tooManyRows", `${supports.length} supports given; at most ${MAX_SUPPORTS} are allowed.`, "supports");
-  const packedLoads = new Float64Array(loads.length * LOAD_STRIDE);
+  const packedLoads = doubles(loads.length * LOAD_STRIDE);
   for (let i = 0; i < loads.length; i++) {
     const e = packLoad(loads[i], i + 1, span, packedLoads, i * LOAD_STRIDE);
     if (e) return e;
   }
-  const packedSupports = new Float64Array(supports.length * SUPPORT_STRIDE);
+  const packedSupports = doubles(supports.length * SUPPORT_STRIDE);
   for (let i = 0; i < supports.length; i++) {
     const e = packSupport(supports[i], i + 1, span, packedSupports, i * SUPPORT_STRIDE);
     if (e) return e;
