@@ -1,0 +1,244 @@
+/** The pane: input tables, column matching, units, build with progress, problems and summary. */
+import * as React from "react";
+import {
+  Badge,
+  Button,
+  Dialog,
+  DialogActions,
+  DialogBody,
+  DialogContent,
+  DialogSurface,
+  DialogTitle,
+  Divider,
+  MessageBar,
+  MessageBarBody,
+  ProgressBar,
+  Spinner,
+  Text,
+  makeStyles,
+  tokens,
+} from "@fluentui/react-components";
+import type { ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../../workbook/takedown-api";
+import { missingColumns, ROLE_TITLES, type TableRole } from "../schema";
+import type { PaneSession, ScanResult, TableChoice } from "../session";
+import { ColumnMatcher, TablePicker, UnitsPicker } from "./Inputs";
+import { ProblemList, SummaryView } from "./Results";
+
+/** The caution every surface carries (design.md section 6). */
+export const CAUTION =
+  "Results are a calculation aid: a qualified engineer must review them, and the codes adopted where the building stands govern.";
+
+const useStyles = makeStyles({
+  pane: { display: "flex", flexDirection: "column", minWidth: "280px", maxWidth: "640px", boxSizing: "border-box" },
+  header: {
+    display: "flex",
+    flexDirection: "column",
+    rowGap: tokens.spacingVerticalXS,
+    padding: `${tokens.spacingVerticalM} ${tokens.spacingHorizontalM}`,
+    backgroundColor: tokens.colorNeutralBackground3,
+    borderBottom: `1px solid ${tokens.colorNeutralStroke2}`,
+  },
+  title: { margin: 0, fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
+  main: { display: "flex", flexDirection: "column", rowGap: tokens.spacingVerticalL, padding: tokens.spacingHorizontalM },
+  section: { display: "flex", flexDirection: "column", rowGap: tokens.spacingVerticalS },
+  h2: { margin: 0, fontSize: tokens.fontSizeBase400, fontWeight: tokens.fontWeightSemibold },
+  buildRow: { display: "flex", flexWrap: "wrap", columnGap: tokens.spacingHorizontalS, rowGap: tokens.spacingVerticalS, alignItems: "center" },
+  caution: { padding: tokens.spacingHorizontalM, color: tokens.colorNeutralForeground2, fontSize: tokens.fontSizeBase200 },
+  status: { color: tokens.colorNeutralForeground3 },
+});
+
+/** Props of {@link App}. */
+export interface AppProps {
+  readonly session: PaneSession;
+  /** True inside Excel; false on the demo page (in-memory workbook). */
+  readonly connected: boolean;
+}
+
+interface Progress {
+  readonly fraction: number;
+  readonly message: string;
+}
+
+const NO_CHOICE: TableChoice = { zones: "", members: "", loads: "" };
+
+/** The task pane. */
+export function App({ session, connected }: AppProps): React.JSX.Element {
+  const styles = useStyles();
+  const [scan, setScan] = React.useState<ScanResult | null>(null);
+  const [choice, setChoice] = React.useState<TableChoice>(NO_CHOICE);
+  const [mapping, setMapping] = React.useState<ColumnMapping>({});
+  const [units, setUnits] = React.useState<UnitSystem>("US");
+  const [progress, setProgress] = React.useState<Progress | null>(null);
+  const [result, setResult] = React.useState<TakedownBuildResult | null>(null);
+  const [resultUnits, setResultUnits] = React.useState<UnitSystem>("US");
+  const [error, setError] = React.useState<string | null>(null);
+  const [askReplace, setAskReplace] = React.useState<string | null>(null);
+  const [selected, setSelected] = React.useState<string>("");
+  const busy = progress !== null;
+
+  const refresh = React.useCallback(async () => {
+    setError(null);
+    try {
+      const saved = await session.loadSettings();
+      setMapping(saved.mapping);
+      setUnits(saved.units);
+      const found = await session.scan(saved.tables, saved.mapping);
+      setScan(found);
+      setChoice(found.choice);
+    } catch (e) {
+      setError(`Could not read the workbook: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  }, [session]);
+
+  React.useEffect(() => {
+    void refresh();
+  }, [refresh]);
+
+  const remember = (next: { choice?: TableChoice; mapping?: ColumnMapping; units?: UnitSystem }): void => {
+    const tables = next.choice ?? choice;
+    const m = next.mapping ?? mapping;
+    const u = next.units ?? units;
+    if (next.choice) setChoice(next.choice);
+    if (next.mapping) setMapping(next.mapping);
+    if (next.units) setUnits(next.units);
+    session.saveSettings({ tables, mapping: m, units: u }).catch((e: unknown) => setError(`Could not save the settings: ${e instanceof Error ? e.message : String(e)}`));
+  };
+
+  const build = async (replaceForeign: boolean): Promise<void> => {
+    setAskReplace(null);
+    setError(null);
+    setSelected("");
+    setProgress({ fraction: 0, message: "Reading the tables…" });
+    try {
+      const outcome = await session.run(choice, { mapping, units }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
+      if (outcome.kind === "askReplace") setAskReplace(outcome.sheet);
+      else {
+        setResult(outcome.result);
+        setResultUnits(units);
+      }
+    } catch (e) {
+      setError(`The build stopped: ${e instanceof Error ? e.message : String(e)}`);
+    } finally {
+      setProgress(null);
+    }
+  };
+
+  const show = (p: Problem): void => {
+    setSelected(`${p.sheet}!${p.cell}`);
+    session.show(p).catch((e: unknown) => setError(`Could not select ${p.sheet}!${p.cell}: ${e instanceof Error ? e.message : String(e)}`));
+  };
+
+  const lacking = (Object.keys(choice) as TableRole[]).flatMap((role) => {
+    const table = scan?.tables.find((t) => t.name === choice[role]);
+    return table ? missingColumns(role, table.headers, mapping).map((c) => `${ROLE_TITLES[role]}: ${c}`) : [];
+  });
+  const ready = choice.zones !== "" && choice.members !== "" && lacking.length === 0;
+  const problems = result?.problems ?? [];
+
+  return (
+    <div className={styles.pane}>
+      <header className={styles.header}>
+        <h1 className={styles.title}>Loadpath takedown</h1>
+        <Text size={200}>From your member tables to live takedown formulas, floor by floor.</Text>
+        <div>
+          {connected ? (
+            <Badge appearance="tint" color="success" data-testid="connection">Connected to Excel</Badge>
+          ) : (
+            <Badge appearance="tint" color="warning" data-testid="connection">Not connected to Excel: sample workbook in this browser</Badge>
+          )}
+        </div>
+      </header>
+      <main className={styles.main}>
+        {error ? (
+          <MessageBar intent="error" role="alert">
+            <MessageBarBody>{error}</MessageBarBody>
+          </MessageBar>
+        ) : null}
+        {scan === null ? (
+          <Spinner size="small" label="Looking for your tables…" />
+        ) : (
+          <>
+            <section className={styles.section} aria-labelledby="lp-tables">
+              <h2 id="lp-tables" className={styles.h2}>1. Input tables</h2>
+              <TablePicker tables={scan.tables} choice={choice} detected={scan.detected} disabled={busy} onChange={(role, name) => remember({ choice: { ...choice, [role]: name } })} />
+              <Button appearance="secondary" size="small" disabled={busy} onClick={() => void refresh()} style={{ alignSelf: "flex-start" }}>
+                Look for tables again
+              </Button>
+            </section>
+            <section className={styles.section} aria-labelledby="lp-columns">
+              <h2 id="lp-columns" className={styles.h2}>2. Columns</h2>
+              <ColumnMatcher tables={scan.tables} choice={choice} mapping={mapping} units={units} disabled={busy} onChange={(m) => remember({ mapping: m })} />
+            </section>
+            <section className={styles.section} aria-labelledby="lp-units">
+              <h2 id="lp-units" className={styles.h2}>3. Units</h2>
+              <UnitsPicker units={units} disabled={busy} onChange={(u) => remember({ units: u })} />
+            </section>
+            <section className={styles.section} aria-labelledby="lp-build">
+              <h2 id="lp-build" className={styles.h2}>4. Build</h2>
+              <div className={styles.buildRow}>
+                <Button appearance="primary" disabled={busy || !ready} onClick={() => void build(false)} data-testid="build">
+                  {result?.sheet ? "Rebuild takedown" : "Build takedown"}
+                </Button>
+                <Text size={200} className={styles.status}>
+                  Writes only the sheet “{session.sheetName}”.
+                </Text>
+              </div>
+              {!ready && scan ? (
+                <Text size={200} role="note">
+                  {lacking.length > 0 ? `Match these columns first: ${lacking.join("; ")}.` : "Pick the load zones and members tables first."}
+                </Text>
+              ) : null}
+              <div aria-live="polite">
+                {progress ? (
+                  <div className={styles.section}>
+                    <ProgressBar value={progress.fraction} max={1} aria-label="Build progress" />
+                    <Text size={200} data-testid="progress">{progress.message}</Text>
+                  </div>
+                ) : null}
+              </div>
+            </section>
+            {result ? (
+              <section className={styles.section} aria-labelledby="lp-result" data-testid="result">
+                <h2 id="lp-result" className={styles.h2}>
+                  {problems.length === 0 ? "Takedown built" : result.ok ? `Built, with ${problems.length} note${problems.length > 1 ? "s" : ""}` : `${problems.length} problem${problems.length > 1 ? "s" : ""} to fix`}
+                </h2>
+                {problems.length > 0 ? (
+                  <>
+                    {!result.ok ? <Text size={200}>Nothing was written. Select a problem to go to its cell.</Text> : null}
+                    <ProblemList problems={problems} onShow={show} />
+                    <div aria-live="polite">
+                      {selected ? <Text size={200} data-testid="selected">Selected {selected}.</Text> : null}
+                    </div>
+                  </>
+                ) : null}
+                {result.summary ? <SummaryView summary={result.summary} units={resultUnits} sheet={result.sheet} /> : null}
+              </section>
+            ) : null}
+          </>
+        )}
+      </main>
+      <Divider />
+      <footer className={styles.caution} role="note" data-testid="caution">
+        {CAUTION}
+      </footer>
+      <Dialog open={askReplace !== null} modalType="alert" onOpenChange={(_, data) => !data.open && setAskReplace(null)}>
+        <DialogSurface>
+          <DialogBody>
+            <DialogTitle>Replace the sheet “{askReplace}”?</DialogTitle>
+            <DialogContent>
+              This workbook already has a sheet named “{askReplace}” that Loadpath did not create. Building replaces everything on it.
+            </DialogContent>
+            <DialogActions>
+              <Button appearance="secondary" onClick={() => setAskReplace(null)}>
+                Keep my sheet
+              </Button>
+              <Button appearance="primary" onClick={() => void build(true)}>
+                Replace it
+              </Button>
+            </DialogActions>
+          </DialogBody>
+        </DialogSurface>
+      </Dialog>
+    </div>
+  );
+}

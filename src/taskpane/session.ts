@@ -1,0 +1,164 @@
+/**
+ * What the pane does, without React: find the input tables, remember the user's choices in the
+ * workbook, run a build while letting the host breathe, select a problem's cell. The components
+ * call this; it calls only the workbook port (never `Excel.run`), so the same pane runs against
+ * Excel and against the in-memory workbook of the demo page.
+ */
+import type { TableInfo, WorkbookPort } from "../workbook/port";
+import type { BuildTakedown, ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../workbook/takedown-api";
+import { detectRoles, type TableRole } from "./schema";
+
+/** Keys of the workbook settings the pane keeps. */
+export const SETTING_KEYS = {
+  tables: "loadpath.tables",
+  mapping: "loadpath.mapping",
+  units: "loadpath.units",
+} as const;
+
+/** Default name of the generated sheet (design.md section 5). */
+export const DEFAULT_SHEET = "Takedown";
+
+/** The input tables chosen for each role ("" = none). */
+export type TableChoice = Readonly<Record<TableRole, string>>;
+
+/** What the pane remembers in the workbook. */
+export interface PaneSettings {
+  readonly tables: TableChoice | null;
+  readonly mapping: ColumnMapping;
+  readonly units: UnitSystem;
+}
+
+/** The tables of the workbook and the choice the pane starts from. */
+export interface ScanResult {
+  readonly tables: readonly TableInfo[];
+  /** Saved choice where its tables still exist, otherwise the tables found by their headers. */
+  readonly choice: TableChoice;
+  /** Roles whose table was found by its headers (not saved, not picked). */
+  readonly detected: readonly TableRole[];
+}
+
+/** A build's outcome as the pane shows it. */
+export type RunOutcome =
+  | { readonly kind: "done"; readonly result: TakedownBuildResult }
+  | { readonly kind: "askReplace"; readonly sheet: string };
+
+function parseJson<T>(text: string | null): T | null {
+  if (text === null || text === "") return null;
+  try {
+    return JSON.parse(text) as T;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Wait for the host: a macrotask lets the page paint the progress and handle input, so a long
+ * build never leaves the pane unresponsive (the host restarts a pane busy for ~5 s).
+ */
+export function yieldToHost(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, 0));
+}
+
+/** A progress callback that yields to the host at most every `everyMs` milliseconds. */
+export function breathingProgress(report: (fraction: number, message: string) => void, everyMs = 40): (fraction: number, message: string) => Promise<void> {
+  let last = 0;
+  return async (fraction, message) => {
+    report(fraction, message);
+    const now = Date.now();
+    if (now - last >= everyMs) {
+      last = now;
+      await yieldToHost();
+    }
+  };
+}
+
+/** The pane's session over one workbook. */
+export class PaneSession {
+  /**
+   * @param port - the workbook (Excel or the in-memory demo workbook).
+   * @param build - the takedown orchestrator.
+   * @param sheetName - the generated sheet's name.
+   */
+  constructor(
+    readonly port: WorkbookPort,
+    private readonly build: BuildTakedown,
+    readonly sheetName: string = DEFAULT_SHEET,
+  ) {}
+
+  /** Saved choices, mapping and unit system (defaults when none were saved). */
+  async loadSettings(): Promise<PaneSettings> {
+    const [tables, mapping, units] = await Promise.all([
+      this.port.getSetting(SETTING_KEYS.tables),
+      this.port.getSetting(SETTING_KEYS.mapping),
+      this.port.getSetting(SETTING_KEYS.units),
+    ]);
+    return {
+      tables: parseJson<TableChoice>(tables),
+      mapping: parseJson<ColumnMapping>(mapping) ?? {},
+      units: units === "SI" ? "SI" : "US",
+    };
+  }
+
+  /** Remember the choices in the workbook (they travel with the file). */
+  async saveSettings(settings: PaneSettings): Promise<void> {
+    await this.port.setSetting(SETTING_KEYS.tables, JSON.stringify(settings.tables ?? {}));
+    await this.port.setSetting(SETTING_KEYS.mapping, JSON.stringify(settings.mapping));
+    await this.port.setSetting(SETTING_KEYS.units, settings.units);
+  }
+
+  /** List the workbook's tables (the add-in's own sheet left out) and pick one for each role. */
+  async scan(saved: TableChoice | null, mapping: ColumnMapping): Promise<ScanResult> {
+    const all = await this.port.listTables();
+    const tables = all.filter((t) => t.sheet !== this.sheetName);
+    const names = new Set(tables.map((t) => t.name));
+    const found = detectRoles(tables, mapping);
+    const choice: Record<TableRole, string> = { zones: "", members: "", loads: "" };
+    const detected: TableRole[] = [];
+    for (const role of ["zones", "members", "loads"] as const) {
+      const keep = saved?.[role];
+      if (keep && names.has(keep)) choice[role] = keep;
+      else if (found[role]) {
+        choice[role] = found[role]!;
+        detected.push(role);
+      }
+    }
+    return { tables, choice, detected };
+  }
+
+  /**
+   * Build the takedown. When a sheet of the generated sheet's name exists and the add-in did not
+   * make it, nothing is written and the pane is asked to confirm (`replaceForeign` after a yes).
+   */
+  async run(
+    choice: TableChoice,
+    settings: Omit<PaneSettings, "tables">,
+    onProgress: (fraction: number, message: string) => void,
+    replaceForeign = false,
+  ): Promise<RunOutcome> {
+    if (!replaceForeign) {
+      const names = await this.port.sheetNames();
+      if (names.includes(this.sheetName) && (await this.port.sheetMarker(this.sheetName)) === null) {
+        return { kind: "askReplace", sheet: this.sheetName };
+      }
+    }
+    const result = await this.build(
+      this.port,
+      {
+        zones: choice.zones,
+        members: choice.members,
+        ...(choice.loads ? { loads: choice.loads } : {}),
+        units: settings.units,
+        mapping: settings.mapping,
+        sheetName: this.sheetName,
+        replaceForeign,
+      },
+      breathingProgress(onProgress),
+    );
+    return { kind: "done", result };
+  }
+
+  /** Select a problem's cell in the workbook and bring it into view. */
+  async show(problem: Problem): Promise<void> {
+    await this.port.select(problem.sheet, problem.cell);
+  }
+}

@@ -1,0 +1,132 @@
+/**
+ * The pane's session over the Office.js adapter and the office-addin-mock model of Excel: table
+ * detection by the default headers of design.md section 4, settings kept in the workbook, the
+ * question before replacing a sheet the add-in did not make, selection of a problem's cell, and
+ * a progress callback that hands control back to the host.
+ */
+import { afterEach, describe, expect, it, vi } from "vitest";
+import { OfficeWorkbookPort } from "../../src/workbook/office";
+import { GENERATED_MARKER } from "../../src/workbook/port";
+import type { BuildTakedown, TakedownOptions } from "../../src/workbook/takedown-api";
+import { PaneSession, breathingProgress } from "../../src/taskpane/session";
+import { FakeExcel } from "../workbook/office-fake";
+
+const ZONES = [["Zone", "D (psf)", "L (psf)", "Reducible"], ["Office", 65, 50, "yes"]];
+const MEMBERS = [
+  ["Mark", "Type", "Level", "Span (ft)", "Zone", "Trib (ft)", "Start support", "Start at (ft)", "End support", "End at (ft)"],
+  ["B1", "beam", "L2", 30, "Office", 10, "G1", 10, "G2", 10],
+];
+const RENAMED = [["Member", "Kind", "Floor", "Length (ft)", "Zone", "Trib width", "Bears on", "At", "End support", "End at"], ["B1", "beam", "L2", 30, "Office", 10, "G1", 10, "G2", 10]];
+
+function excel(extraSheets: Record<string, (string | number)[][]> = {}, members = MEMBERS): FakeExcel {
+  const fake = new FakeExcel(extraSheets, [
+    { name: "tblZones", sheet: "Input", rows: ZONES },
+    { name: "tblFraming", sheet: "Input", rows: members, at: "H1" },
+    { name: "tblNotes", sheet: "Notes", rows: [["Item", "Note"], ["1", "Checked"]] },
+  ]);
+  vi.stubGlobal("Excel", fake.excel());
+  return fake;
+}
+
+afterEach(() => vi.unstubAllGlobals());
+
+/** An orchestrator double that records what the pane asked for. */
+function recordingBuild(calls: TakedownOptions[]): BuildTakedown {
+  return async (_port, options, progress) => {
+    calls.push(options);
+    for (let i = 1; i <= 4; i++) await progress?.(i / 4, `step ${i}`);
+    return { ok: true, problems: [], sheet: options.sheetName ?? "Takedown" };
+  };
+}
+
+describe("finding the tables", () => {
+  it("finds the zones and members tables by their default headers", async () => {
+    excel();
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    const scan = await session.scan(null, {});
+    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblFraming", loads: "" });
+    expect(scan.detected).toEqual(["zones", "members"]);
+  });
+
+  it("leaves a differently headed table unpicked until its columns are mapped", async () => {
+    excel({}, RENAMED);
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    expect((await session.scan(null, {})).choice.members).toBe("");
+    const mapping = { members: { Mark: "Member", Span: "Length (ft)", "Start support": "Bears on" } };
+    expect((await session.scan(null, mapping)).choice.members).toBe("tblFraming");
+  });
+
+  it("keeps a saved choice over detection and leaves the add-in's own sheet out", async () => {
+    const fake = excel({ Takedown: [[GENERATED_MARKER], ["Mark", "Type", "Level", "Span", "Start support"]] });
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    const scan = await session.scan({ zones: "tblZones", members: "tblNotes", loads: "gone" }, {});
+    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblNotes", loads: "" });
+    expect(scan.tables.map((t) => t.name)).not.toContain("Takedown");
+    expect(fake.syncs).toBe(3);
+  });
+});
+
+describe("settings in the workbook", () => {
+  it("round-trips tables, mapping and units through workbook settings", async () => {
+    const fake = excel();
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    expect(await session.loadSettings()).toEqual({ tables: null, mapping: {}, units: "US" });
+    const saved = { tables: { zones: "tblZones", members: "tblFraming", loads: "" }, mapping: { members: { Trib: "Trib width" } }, units: "SI" as const };
+    await session.saveSettings(saved);
+    expect(JSON.parse(String(fake.settings.get("loadpath.mapping")))).toEqual(saved.mapping);
+    expect(await new PaneSession(new OfficeWorkbookPort(), recordingBuild([])).loadSettings()).toEqual(saved);
+  });
+});
+
+describe("building", () => {
+  it("passes the choice, mapping and units to the builder and reports progress", async () => {
+    excel();
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    const seen: number[] = [];
+    const outcome = await session.run({ zones: "tblZones", members: "tblFraming", loads: "" }, { mapping: { members: { Trib: "Trib width" } }, units: "SI" }, (f) => seen.push(f));
+    expect(outcome.kind).toBe("done");
+    expect(calls).toEqual([{ zones: "tblZones", members: "tblFraming", units: "SI", mapping: { members: { Trib: "Trib width" } }, sheetName: "Takedown", replaceForeign: false }]);
+    expect(seen).toEqual([0.25, 0.5, 0.75, 1]);
+  });
+
+  it("asks before replacing a same-named sheet it did not make, and builds only after a yes", async () => {
+    excel({ Takedown: [["My own notes"]] });
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    const choice = { zones: "tblZones", members: "tblFraming", loads: "" };
+    expect(await session.run(choice, { mapping: {}, units: "US" }, () => {})).toEqual({ kind: "askReplace", sheet: "Takedown" });
+    expect(calls).toEqual([]);
+    await session.run(choice, { mapping: {}, units: "US" }, () => {}, true);
+    expect(calls[0]?.replaceForeign).toBe(true);
+  });
+
+  it("rebuilds its own sheet without asking", async () => {
+    excel({ Takedown: [[`${GENERATED_MARKER}: takedown`]] });
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    const outcome = await session.run({ zones: "tblZones", members: "tblFraming", loads: "" }, { mapping: {}, units: "US" }, () => {});
+    expect(outcome.kind).toBe("done");
+    expect(calls).toHaveLength(1);
+  });
+
+  it("selects a problem's cell on its sheet", async () => {
+    const fake = excel();
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    await session.show({ code: "unknownSupport", message: "B1: start support G9 is not a member.", sheet: "Input", cell: "N2" });
+    expect(fake.activeSheet).toBe("Input");
+    expect(fake.selection).toEqual({ sheet: "Input", address: "N2" });
+  });
+});
+
+describe("yielding to the host", () => {
+  it("lets a timer run between progress reports, so the page can paint and take input", async () => {
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 0);
+    const progress = breathingProgress(() => {}, 0);
+    const before = ticks;
+    for (let i = 0; i < 5; i++) await progress(i / 5, "working");
+    clearInterval(timer);
+    expect(ticks - before).toBeGreaterThanOrEqual(4);
+  });
+});
