@@ -163,24 +163,55 @@ function allowableStressCombinations(): Combination[] {
   ];
 }
 
-const STRENGTH = { plain: Object.freeze(strengthCombinations(false)), halfLive: Object.freeze(strengthCombinations(true)) };
-const ALLOWABLE = Object.freeze(allowableStressCombinations());
+/** A combination list with each row's factors laid out in LOAD_CASES order, for fast evaluation. */
+interface CompiledList {
+  readonly rows: readonly Combination[];
+  /** rows.length x 7 factors, row-major. */
+  readonly factors: Float64Array;
+}
+
+function compile(rows: Combination[]): CompiledList {
+  const factors = new Float64Array(rows.length * LOAD_CASES.length);
+  rows.forEach((row, r) => {
+    for (const t of row.terms) factors[r * LOAD_CASES.length + LOAD_CASES.indexOf(t.load)]! += t.factor;
+  });
+  return { rows: Object.freeze(rows), factors };
+}
+
+const STRENGTH = { plain: compile(strengthCombinations(false)), halfLive: compile(strengthCombinations(true)) };
+const ALLOWABLE = compile(allowableStressCombinations());
+
+function compiledOf(options: CombinationOptions): CompiledList {
+  if (options.method === "ASD") return ALLOWABLE;
+  return options.halfLive ? STRENGTH.halfLive : STRENGTH.plain;
+}
 
 /**
  * The expanded combination list of a method (same rows, in the standard's order, for any load
  * values: one row per "or" alternative and per sign of W and E).
  */
 export function combinationsOf(options: CombinationOptions): readonly Combination[] {
-  if (options.method === "ASD") return ALLOWABLE;
-  return options.halfLive ? STRENGTH.halfLive : STRENGTH.plain;
+  return compiledOf(options).rows;
 }
 
 /** The largest number of rows of any method: the fixed height of a spilled list of combinations. */
-export const COMBINATION_ROWS_MAX = Math.max(STRENGTH.plain.length, ALLOWABLE.length);
+export const COMBINATION_ROWS_MAX = Math.max(STRENGTH.plain.rows.length, ALLOWABLE.rows.length);
+
+function effectVector(effects: LoadEffects): number[] {
+  return [effects.D, effects.L, effects.Lr, effects.S, effects.R, effects.W, effects.E];
+}
+
+/** Sum of factor x effect over the 7 cases, always in LOAD_CASES order (so every path rounds alike). */
+function dot(factors: ArrayLike<number>, offset: number, x: readonly number[]): number {
+  let v = 0;
+  for (let j = 0; j < 7; j++) v += factors[offset + j]! * x[j]!;
+  return v;
+}
 
 /** Value of one combination: sum of factor x load effect. */
 export function combinationValue(combination: Combination, effects: LoadEffects): number {
-  return combination.terms.reduce((sum, t) => sum + t.factor * effects[t.load], 0);
+  const factors = LOAD_CASES.map((load) => combination.terms.reduce((f, t) => (t.load === load ? f + t.factor : f), 0));
+  return dot(factors, 0, effectVector(effects));
 }
 
 /**
@@ -189,7 +220,9 @@ export function combinationValue(combination: Combination, effects: LoadEffects)
  * @param options - method and the 0.5L option
  */
 export function combinationValues(effects: LoadEffects, options: CombinationOptions): CombinationValue[] {
-  return combinationsOf(options).map((c) => ({ ...c, value: combinationValue(c, effects) }));
+  const { rows, factors } = compiledOf(options);
+  const x = effectVector(effects);
+  return rows.map((c, r) => ({ ...c, value: dot(factors, r * 7, x) }));
 }
 
 /**
@@ -197,9 +230,19 @@ export function combinationValues(effects: LoadEffects, options: CombinationOpti
  * Ties go to the first combination in the standard's order.
  */
 export function governingCombination(effects: LoadEffects, options: CombinationOptions, extreme: ExtremeKind): CombinationValue {
-  const rows = combinationValues(effects, options);
-  const better = extreme === "max" ? (a: number, b: number) => a > b : (a: number, b: number) => a < b;
-  return rows.reduce((best, row) => (better(row.value, best.value) ? row : best));
+  const { rows, factors } = compiledOf(options);
+  const x = effectVector(effects);
+  const sign = extreme === "max" ? 1 : -1;
+  let best = 0;
+  let bestValue = dot(factors, 0, x);
+  for (let r = 1; r < rows.length; r++) {
+    const v = dot(factors, r * 7, x);
+    if (sign * v > sign * bestValue) {
+      best = r;
+      bestValue = v;
+    }
+  }
+  return { ...rows[best]!, value: bestValue };
 }
 
 /** Check that every load effect is a finite number (error names the case's argument). */
