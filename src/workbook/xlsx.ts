@@ -1,0 +1,309 @@
+/**
+ * .xlsx files <-> the headless engine, through ExcelJS. Reading gives each sheet's values and
+ * formulas (in the engine's spelling), every formula cell as written in the file, and the
+ * workbook's Excel tables (name, sheet, extent from `tableRef`, headers). Writing back keeps the
+ * ExcelJS model of the file (styles, tables, names, widths) and only sets each formula cell to
+ * `{ formula, result }` with the computed value cached, so the file reads correctly in any
+ * program, with or without the add-in.
+ *
+ * Spelling in files: LOADPATH calls are written as `_xldudf_LOADPATH_NAME(` (what Excel itself
+ * stores for add-in functions, with the namespace's dot as an underscore); other formula text is
+ * written as it was read (`_xlfn.` prefixes kept). Spilled results are written as array formulas
+ * over the spilled area (`t="array"`) with the values in the other cells: ExcelJS cannot write
+ * Excel's dynamic-array marker, and an array formula computes the same cells.
+ */
+import { existsSync } from "node:fs";
+import { resolve } from "node:path";
+import ExcelJS from "exceljs";
+import { DetailedCellError, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
+import { cellAddress, parseCell, sheetRef } from "./a1";
+import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
+
+/** A formula cell as found in the file. Rows and columns are 0-based. */
+export interface XlsxFormulaCell {
+  readonly sheet: string;
+  readonly row: number;
+  readonly col: number;
+  /** Formula text as in the file, without "=" (shared formulas already expanded for this cell). */
+  readonly formula: string;
+  /** For an array formula (Excel's spilled results are stored this way), its area, e.g. "F2:H2". */
+  readonly arrayRef?: string;
+}
+
+/** An Excel table (ListObject) of the workbook. */
+export interface XlsxTable {
+  readonly name: string;
+  readonly sheet: string;
+  /** Full extent including the header row (and totals row), e.g. "A1:H20". */
+  readonly ref: string;
+  readonly headers: readonly string[];
+}
+
+/** One sheet as the engine reads it: values and "=formula" strings (engine spelling), row-major. */
+export interface XlsxSheet {
+  readonly name: string;
+  readonly rows: RawCellContent[][];
+}
+
+/** A workbook read from a file, ready to evaluate and to write back. */
+export interface XlsxWorkbook {
+  /** Absolute path it was read from (undefined when built in memory). */
+  readonly path?: string;
+  /** The ExcelJS model: written back with its styles, tables and everything else untouched. */
+  readonly excel: ExcelJS.Workbook;
+  readonly sheets: readonly XlsxSheet[];
+  readonly formulas: readonly XlsxFormulaCell[];
+  readonly tables: readonly XlsxTable[];
+}
+
+/** Excel's day 0 (1899-12-30) in ms since the Unix epoch: dates become serial day numbers. */
+const EXCEL_EPOCH_MS = Date.UTC(1899, 11, 30);
+const MS_PER_DAY = 86_400_000;
+
+interface CellModelish {
+  type: ExcelJS.ValueType;
+  value: unknown;
+  formula?: string;
+  text?: string;
+}
+
+/** A plain (non-formula) cell value for the engine; text is marked so it is never parsed. */
+function plainContent(cell: CellModelish): RawCellContent {
+  const v = cell.value;
+  switch (cell.type) {
+    case ExcelJS.ValueType.Number:
+    case ExcelJS.ValueType.Boolean:
+      return v as number | boolean;
+    case ExcelJS.ValueType.Date:
+      return ((v as Date).getTime() - EXCEL_EPOCH_MS) / MS_PER_DAY;
+    case ExcelJS.ValueType.Error:
+      return (v as { error: string }).error;
+    case ExcelJS.ValueType.String:
+    case ExcelJS.ValueType.SharedString:
+    case ExcelJS.ValueType.RichText:
+    case ExcelJS.ValueType.Hyperlink: {
+      const text = typeof v === "string" ? v : (cell.text ?? "");
+      // A leading apostrophe keeps text as text ("12", "=x", "TRUE" stay strings).
+      return text === "" ? null : `'${text}`;
+    }
+    default:
+      return null;
+  }
+}
+
+/** Cells of an "A1:C3" area, 0-based. */
+export function areaCells(ref: string): { row: number; col: number }[] {
+  const [a, b = a] = ref.split(":");
+  const p = parseCell(a!);
+  const q = parseCell(b!);
+  const out: { row: number; col: number }[] = [];
+  for (let r = Math.min(p.row, q.row); r <= Math.max(p.row, q.row); r++) for (let c = Math.min(p.col, q.col); c <= Math.max(p.col, q.col); c++) out.push({ row: r, col: c });
+  return out;
+}
+
+function setAt(rows: RawCellContent[][], row: number, col: number, content: RawCellContent): void {
+  while (rows.length <= row) rows.push([]);
+  const r = rows[row]!;
+  while (r.length < col) r.push(null);
+  r[col] = content;
+}
+
+function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFormulaCell[] } {
+  const rows: RawCellContent[][] = [];
+  const formulas: XlsxFormulaCell[] = [];
+  ws.eachRow({ includeEmpty: false }, (row, rowNumber) => {
+    row.eachCell({ includeEmpty: false }, (cell, colNumber) => {
+      const r = rowNumber - 1;
+      const c = colNumber - 1;
+      const model = cell as unknown as CellModelish;
+      if (cell.type === ExcelJS.ValueType.Formula) {
+        const formula = String(cell.formula ?? "");
+        const value = cell.value as { shareType?: string; ref?: string };
+        const arrayRef = value.shareType === "array" && value.ref ? value.ref : undefined;
+        formulas.push({ sheet: ws.name, row: r, col: c, formula, ...(arrayRef ? { arrayRef } : {}) });
+        setAt(rows, r, c, "=" + toEngineFormula(formula));
+      } else if (cell.type !== ExcelJS.ValueType.Merge) {
+        setAt(rows, r, c, plainContent(model));
+      }
+    });
+  });
+  // The other cells of an array formula hold its last results: clear them, the engine recomputes.
+  for (const f of formulas) {
+    if (!f.arrayRef) continue;
+    for (const { row, col } of areaCells(f.arrayRef)) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
+  }
+  return { sheet: { name: ws.name, rows }, formulas };
+}
+
+function isFormula(content: RawCellContent | undefined): boolean {
+  return typeof content === "string" && content.startsWith("=");
+}
+
+function readTables(ws: ExcelJS.Worksheet): XlsxTable[] {
+  const tables = (ws as unknown as { tables?: Record<string, { table?: Record<string, unknown>; model?: Record<string, unknown> }> }).tables ?? {};
+  return Object.values(tables).map((t) => {
+    const model = (t.table ?? t.model ?? {}) as { name?: string; tableRef?: string; ref?: string; columns?: { name?: string }[] };
+    return { name: String(model.name ?? ""), sheet: ws.name, ref: String(model.tableRef ?? model.ref ?? ""), headers: (model.columns ?? []).map((c) => String(c.name ?? "")) };
+  });
+}
+
+/**
+ * Read an ExcelJS workbook model into engine sheets, formula cells and tables.
+ * @param excel - a loaded (or built) ExcelJS workbook.
+ * @param path - where it came from, if a file.
+ */
+export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkbook {
+  const sheets: XlsxSheet[] = [];
+  const formulas: XlsxFormulaCell[] = [];
+  const tables: XlsxTable[] = [];
+  excel.eachSheet((ws) => {
+    const read = readSheet(ws);
+    sheets.push(read.sheet);
+    formulas.push(...read.formulas);
+    tables.push(...readTables(ws));
+  });
+  return { ...(path ? { path } : {}), excel, sheets, formulas, tables };
+}
+
+/**
+ * Read an .xlsx file.
+ * @param path - the file.
+ * @throws Error with a plain message when the file is missing or not an .xlsx workbook.
+ */
+export async function readXlsx(path: string): Promise<XlsxWorkbook> {
+  const full = resolve(path);
+  if (!existsSync(full)) throw new Error(`${path}: no such file.`);
+  const excel = new ExcelJS.Workbook();
+  try {
+    await excel.xlsx.readFile(full);
+  } catch (e) {
+    throw new Error(`${path}: not a readable .xlsx workbook (${e instanceof Error ? e.message : String(e)}).`);
+  }
+  return fromExcelJs(excel, full);
+}
+
+/** The sheets as `createHeadless` takes them. */
+export function engineSheets(wb: XlsxWorkbook): Record<string, RawCellContent[][]> {
+  return Object.fromEntries(wb.sheets.map((s) => [s.name, s.rows]));
+}
+
+/**
+ * A headless engine loaded with the workbook's sheets.
+ * @param wb - the workbook.
+ * @param options - headless options (bundle folder, configuration).
+ */
+export async function evaluateWorkbook(wb: XlsxWorkbook, options: Omit<HeadlessOptions, "sheets"> = {}): Promise<Headless> {
+  return createHeadless({ ...options, sheets: engineSheets(wb) });
+}
+
+/** What went wrong in one formula cell. */
+export interface CellProblem {
+  readonly sheet: string;
+  /** A1 address on the sheet. */
+  readonly address: string;
+  /** unknownFunction = #NAME?; cycle = circular reference; error = any other error value. */
+  readonly kind: "unknownFunction" | "cycle" | "error";
+  /** Excel error text, e.g. "#VALUE!". */
+  readonly code: string;
+  readonly message: string;
+  /** The cell's formula calls a LOADPATH function. */
+  readonly loadpath: boolean;
+  /** Where the error came from when it was passed on from another cell ("Sheet!A1"), else undefined. */
+  readonly from?: string;
+}
+
+/** The result of evaluating a workbook's formulas. */
+export interface RecalcSummary {
+  readonly formulaCount: number;
+  /** Formula cells that call a LOADPATH function. */
+  readonly loadpathCount: number;
+  readonly problems: readonly CellProblem[];
+}
+
+function problemOf(f: XlsxFormulaCell, e: DetailedCellError): CellProblem {
+  const address = cellAddress(f.row, f.col);
+  const here = `${f.sheet}!${address}`;
+  const kind = e.type === "NAME" ? "unknownFunction" : e.type === "CYCLE" ? "cycle" : "error";
+  const message = kind === "cycle" ? "circular reference (the formula depends on itself)." : e.message || e.value;
+  const origin = e.address && e.address.replace(/'/g, "") !== here ? { from: e.address } : {};
+  return { sheet: f.sheet, address, kind, code: e.value, message, loadpath: callsLoadpath(f.formula), ...origin };
+}
+
+/** Size of the array whose anchor is at `addr` (its cells are typed ARRAY to the right and below). */
+function arrayExtent(hf: HyperFormula, sheet: number, row: number, col: number): { rows: number; cols: number } {
+  let cols = 1;
+  while (hf.getCellType({ sheet, row, col: col + cols }) === "ARRAY") cols++;
+  let rows = 1;
+  while (hf.getCellType({ sheet, row: row + rows, col }) === "ARRAY") rows++;
+  return { rows, cols };
+}
+
+type Cached = number | string | boolean | { error: string } | undefined;
+
+/** A computed value as cached in a file. */
+function cachedOf(v: HfCellValue): Cached {
+  if (v instanceof DetailedCellError) return { error: excelErrorText(v.type) };
+  if (v === null) return undefined;
+  return v as number | string | boolean;
+}
+
+/** A spilled value written as a plain cell ("" padding is left blank). */
+function plainOf(v: HfCellValue): ExcelJS.CellValue {
+  const c = cachedOf(v);
+  return c === undefined || c === "" ? null : (c as ExcelJS.CellValue);
+}
+
+/**
+ * Evaluate every formula and cache the results in the workbook's ExcelJS model: each formula
+ * cell becomes `{ formula, result }` (LOADPATH calls in the file spelling), spilled results become
+ * array formulas over their area with the values in the other cells.
+ * @param wb - the workbook read by {@link readXlsx}.
+ * @param headless - an engine built from `wb` by {@link evaluateWorkbook}.
+ * @returns counts and every formula cell whose value is an error.
+ */
+export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummary {
+  const hf = headless.hf;
+  const problems: CellProblem[] = [];
+  let loadpathCount = 0;
+  for (const f of wb.formulas) {
+    const sheetId = hf.getSheetId(f.sheet)!;
+    const ws = wb.excel.getWorksheet(f.sheet)!;
+    const addr = { sheet: sheetId, row: f.row, col: f.col };
+    const value = hf.getCellValue(addr);
+    if (callsLoadpath(f.formula)) loadpathCount++;
+    if (value instanceof DetailedCellError) problems.push(problemOf(f, value));
+    const formula = toFileFormula(f.formula);
+    if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef)) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
+    const cell = ws.getCell(f.row + 1, f.col + 1);
+    if (hf.getCellType(addr) === "ARRAYFORMULA") {
+      const size = arrayExtent(hf, sheetId, f.row, f.col);
+      const ref = `${cellAddress(f.row, f.col)}:${cellAddress(f.row + size.rows - 1, f.col + size.cols - 1)}`;
+      cell.value = { formula, result: cachedOf(value), shareType: "array", ref } as unknown as ExcelJS.CellValue;
+      for (let r = 0; r < size.rows; r++) {
+        for (let c = 0; c < size.cols; c++) {
+          if (r === 0 && c === 0) continue;
+          ws.getCell(f.row + r + 1, f.col + c + 1).value = plainOf(hf.getCellValue({ sheet: sheetId, row: f.row + r, col: f.col + c }));
+        }
+      }
+    } else {
+      const result = cachedOf(value);
+      cell.value = (result === undefined ? { formula } : { formula, result }) as ExcelJS.CellValue;
+    }
+  }
+  return { formulaCount: wb.formulas.length, loadpathCount, problems };
+}
+
+/**
+ * Write the workbook to a file. It writes exactly where it is told: callers (the CLI) write only
+ * to a path the user named, so the input is replaced only when the user names it as the output.
+ * @param wb - the workbook.
+ * @param output - destination path.
+ */
+export async function writeXlsx(wb: XlsxWorkbook, output: string): Promise<void> {
+  await wb.excel.xlsx.writeFile(resolve(output));
+}
+
+/** "Sheet!A1" for a problem, with the sheet quoted when it needs it. */
+export function problemAddress(p: Pick<CellProblem, "sheet" | "address">): string {
+  return `${sheetRef(p.sheet)}!${p.address}`;
+}
