@@ -1,26 +1,29 @@
 /**
  * Text width without a DOM: the drawings are laid out in Node as well as in the pane, so label
- * widths are estimated from per-character advance widths of a common sans-serif face (Arial and
- * its metric-compatible substitutes), with a small margin so estimates err on the wide side.
+ * widths are estimated from per-character advance widths. Each character takes the wider of
+ * two common sans-serif faces (Arial and its metric-compatible substitutes; DejaVu Sans, the
+ * usual fallback on Linux), plus a small margin, so estimates err on the wide side wherever
+ * the drawing is shown.
  */
 
-/** Font stack of every drawing: widely installed faces sharing one set of metrics. */
+/** Font stack of every drawing: Arial-metric faces first; {@link textWidth} also covers the usual fallback. */
 export const FONT_FAMILY = "Arial, Helvetica, 'Liberation Sans', 'Nimbus Sans', sans-serif";
 
-const UPPER = "667 667 722 722 667 611 778 722 278 500 667 556 833 722 778 667 778 722 667 611 722 667 944 667 667 611";
-const LOWER = "556 556 500 556 556 278 556 556 222 222 500 222 833 556 556 556 556 333 500 278 556 500 722 500 500 500";
+/** Advance widths (thousandths of an em), the wider of the two faces, A-Z and a-z. */
+const UPPER = "684 686 722 770 667 611 778 752 295 500 667 557 863 748 787 667 787 722 667 611 732 684 989 685 667 685";
+const LOWER = "613 635 550 635 615 352 635 634 278 278 579 278 974 634 612 635 635 411 521 392 634 592 818 592 592 525";
 
 function table(): Map<string, number> {
   const m = new Map<string, number>();
   UPPER.split(" ").forEach((w, i) => m.set(String.fromCharCode(65 + i), Number(w)));
   LOWER.split(" ").forEach((w, i) => m.set(String.fromCharCode(97 + i), Number(w)));
-  for (let d = 0; d <= 9; d++) m.set(String(d), 556);
+  for (let d = 0; d <= 9; d++) m.set(String(d), 636);
   const others: [string, number][] = [
-    [" ", 278], [".", 278], [",", 278], [":", 278], [";", 278], ["-", 333], ["\u2212", 584],
-    ["/", 278], ["(", 333], [")", 333], ["@", 1015], ["=", 584], ["+", 584], ["\u00B7", 333],
-    ["\u2026", 1000], ["'", 191], ['"', 355], ["#", 556], ["%", 889], ["&", 667], ["*", 389],
-    ["_", 556], ["<", 584], [">", 584], ["[", 278], ["]", 278], ["\u0394", 668], ["\u00D7", 584],
-    ["\u2192", 1000], ["\u2190", 1000],
+    [" ", 318], [".", 318], [",", 318], [":", 337], [";", 337], ["-", 361], ["\u2212", 838],
+    ["/", 337], ["(", 390], [")", 390], ["@", 1015], ["=", 838], ["+", 838], ["\u00B7", 333],
+    ["\u2026", 1000], ["'", 275], ['"', 460], ["#", 838], ["%", 950], ["&", 780], ["*", 500],
+    ["_", 556], ["<", 838], [">", 838], ["[", 390], ["]", 390], ["\u0394", 684], ["\u00D7", 838],
+    ["\u00B2", 400], ["\u2192", 1000], ["\u2190", 1000],
   ];
   for (const [c, w] of others) m.set(c, w);
   return m;
@@ -29,8 +32,8 @@ function table(): Map<string, number> {
 const ADVANCE = table();
 /** Advance of a character not in the table (wide scripts, symbols), in thousandths of an em. */
 const UNKNOWN_ADVANCE = 1000;
-const SAFETY = 1.04;
-const BOLD_FACTOR = 1.07;
+const SAFETY = 1.03;
+const BOLD_FACTOR = 1.1;
 
 /**
  * Estimated width of a line of text.

@@ -38,7 +38,9 @@ function attrText(attrs: Attrs): string {
   let out = "";
   for (const [k, v] of Object.entries(attrs)) {
     if (v === undefined) continue;
-    out += ` ${k}="${typeof v === "number" ? num(v) : escapeXml(v)}"`;
+    // Geometry is rounded to 0.01 units; data-* values keep full precision for tooling.
+    const value = typeof v === "number" ? (k.startsWith("data-") ? String(v) : num(v)) : escapeXml(v);
+    out += ` ${k}="${value}"`;
   }
   return out;
 }
