@@ -11,6 +11,8 @@
  * (+E and -E), so `min` finds the uplift / net tension case. "(Lr or S or R)" is expanded into
  * one row per alternative, so the record shows each. E is the seismic load effect as the user
  * computed it (horizontal and vertical effects together); Ev is not computed or separated here.
+ * Snow S is the strength-level snow load effect of ASCE/SEI 7-22 (Chapter 7), hence the factors
+ * 1.0, 0.3 and 0.15 in strength design and 0.7 in allowable stress design (recalled from memory).
  */
 import { fail, ok, type Result } from "../errors";
 import { finite, normaliseKey } from "./checks";
@@ -77,9 +79,13 @@ function only(...terms: CombinationTerm[]): Alternatives {
   return [terms];
 }
 
-/** "factor(Lr or S or R)": one alternative per roof load case. */
-function roofOr(factor: number, wrap?: (load: LoadCase) => string): Alternatives {
-  return (["Lr", "S", "R"] as const).map((load) => [term(load, factor, wrap?.(load))]);
+/**
+ * "(factor Lr or snowFactor S or factor R)": one alternative per roof load case. ASCE/SEI 7-22
+ * gives snow at strength level, so S carries its own factor (1.0, 0.3, 0.15 in strength design;
+ * 0.7 in allowable stress design) where Lr and R keep the factors of earlier editions.
+ */
+function roofOr(factor: number, snowFactor: number, snowText?: string): Alternatives {
+  return (["Lr", "S", "R"] as const).map((load) => [load === "S" ? term("S", snowFactor, snowText) : term(load, factor)]);
 }
 
 /** A load effect that acts in either direction: +t and -t. */
@@ -108,14 +114,14 @@ function strengthCombinations(halfLive: boolean): Combination[] {
     // ASCE/SEI 7-22 Sec. 2.3.1, combination 1 (recalled from memory; verify against the standard): 1.4D
     ...expand("2.3.1", 1, [only(term("D", 1.4))]),
     // ASCE/SEI 7-22 Sec. 2.3.1, combination 2 (recalled from memory; verify against the standard):
-    // 1.2D + 1.6L + 0.5(Lr or S or R)
-    ...expand("2.3.1", 2, [only(term("D", 1.2)), only(term("L", 1.6)), roofOr(0.5)]),
+    // 1.2D + 1.6L + (0.5Lr or 0.3S or 0.5R)
+    ...expand("2.3.1", 2, [only(term("D", 1.2)), only(term("L", 1.6)), roofOr(0.5, 0.3)]),
     // ASCE/SEI 7-22 Sec. 2.3.1, combination 3 (recalled from memory; verify against the standard):
-    // 1.2D + 1.6(Lr or S or R) + (L or 0.5W); 0.5L permitted (Sec. 2.3.1 exception, recalled)
-    ...expand("2.3.1", 3, [only(term("D", 1.2)), roofOr(1.6), [[term("L", fL)], ...eitherSign(term("W", 0.5))]]),
+    // 1.2D + (1.6Lr or 1.0S or 1.6R) + (L or 0.5W); 0.5L permitted (Sec. 2.3.1 exception, recalled)
+    ...expand("2.3.1", 3, [only(term("D", 1.2)), roofOr(1.6, 1, "1.0S"), [[term("L", fL)], ...eitherSign(term("W", 0.5))]]),
     // ASCE/SEI 7-22 Sec. 2.3.1, combination 4 (recalled from memory; verify against the standard):
-    // 1.2D + 1.0W + L + 0.5(Lr or S or R)
-    ...expand("2.3.1", 4, [only(term("D", 1.2)), eitherSign(term("W", 1, "1.0W")), only(term("L", fL)), roofOr(0.5)]),
+    // 1.2D + 1.0W + L + (0.5Lr or 0.3S or 0.5R)
+    ...expand("2.3.1", 4, [only(term("D", 1.2)), eitherSign(term("W", 1, "1.0W")), only(term("L", fL)), roofOr(0.5, 0.3)]),
     // ASCE/SEI 7-22 Sec. 2.3.1, combination 5 (recalled from memory; verify against the standard): 0.9D + 1.0W
     ...expand("2.3.1", 5, [only(term("D", 0.9)), eitherSign(term("W", 1, "1.0W"))]),
     // ASCE/SEI 7-22 Sec. 2.3.6, combination 6 (recalled from memory; verify against the standard):
@@ -134,20 +140,20 @@ function allowableStressCombinations(): Combination[] {
     ...expand("2.4.1", 1, [only(term("D", 1))]),
     // ASCE/SEI 7-22 Sec. 2.4.1, combination 2 (recalled from memory; verify against the standard): D + L
     ...expand("2.4.1", 2, [only(term("D", 1)), only(term("L", 1))]),
-    // ASCE/SEI 7-22 Sec. 2.4.1, combination 3 (recalled from memory; verify against the standard): D + (Lr or S or R)
-    ...expand("2.4.1", 3, [only(term("D", 1)), roofOr(1)]),
+    // ASCE/SEI 7-22 Sec. 2.4.1, combination 3 (recalled from memory; verify against the standard): D + (Lr or 0.7S or R)
+    ...expand("2.4.1", 3, [only(term("D", 1)), roofOr(1, 0.7)]),
     // ASCE/SEI 7-22 Sec. 2.4.1, combination 4 (recalled from memory; verify against the standard):
-    // D + 0.75L + 0.75(Lr or S or R)
-    ...expand("2.4.1", 4, [only(term("D", 1)), only(term("L", 0.75)), roofOr(0.75)]),
+    // D + 0.75L + 0.75(Lr or 0.7S or R)
+    ...expand("2.4.1", 4, [only(term("D", 1)), only(term("L", 0.75)), roofOr(0.75, 0.75 * 0.7, "0.75(0.7S)")]),
     // ASCE/SEI 7-22 Sec. 2.4.1, combination 5 (recalled from memory; verify against the standard): D + 0.6W
     ...expand("2.4.1", 5, [only(term("D", 1)), eitherSign(term("W", 0.6))]),
     // ASCE/SEI 7-22 Sec. 2.4.1, combination 6 (recalled from memory; verify against the standard):
-    // D + 0.75L + 0.75(0.6W) + 0.75(Lr or S or R)
+    // D + 0.75L + 0.75(0.6W) + 0.75(Lr or 0.7S or R)
     ...expand("2.4.1", 6, [
       only(term("D", 1)),
       only(term("L", 0.75)),
       eitherSign(term("W", 0.75 * 0.6, "0.75(0.6W)")),
-      roofOr(0.75),
+      roofOr(0.75, 0.75 * 0.7, "0.75(0.7S)"),
     ]),
     // ASCE/SEI 7-22 Sec. 2.4.1, combination 7 (recalled from memory; verify against the standard): 0.6D + 0.6W
     ...expand("2.4.1", 7, [only(term("D", 0.6)), eitherSign(term("W", 0.6))]),
@@ -155,8 +161,13 @@ function allowableStressCombinations(): Combination[] {
     // 1.0D + 0.7Ev + 0.7Eh, with E = the seismic load effect as entered, both signs
     ...expand("2.4.5", 8, [only(term("D", 1, "1.0D")), eitherSign(term("E", 0.7))]),
     // ASCE/SEI 7-22 Sec. 2.4.5, combination 9 (recalled from memory; verify against the standard):
-    // 1.0D + 0.525Ev + 0.525Eh + 0.75L + 0.75S
-    ...expand("2.4.5", 9, [only(term("D", 1, "1.0D")), eitherSign(term("E", 0.525)), only(term("L", 0.75)), only(term("S", 0.75))]),
+    // 1.0D + 0.525Ev + 0.525Eh + 0.75L + 0.75(0.7S)
+    ...expand("2.4.5", 9, [
+      only(term("D", 1, "1.0D")),
+      eitherSign(term("E", 0.525)),
+      only(term("L", 0.75)),
+      only(term("S", 0.75 * 0.7, "0.75(0.7S)")),
+    ]),
     // ASCE/SEI 7-22 Sec. 2.4.5, combination 10 (recalled from memory; verify against the standard):
     // 0.6D - 0.7Ev + 0.7Eh, with E = the seismic load effect as entered, both signs
     ...expand("2.4.5", 10, [only(term("D", 0.6)), eitherSign(term("E", 0.7))]),
