@@ -111,7 +111,7 @@ function optionsOf(a: CombineArgs): CombinationOptions {
  * @param D Dead load effect (any consistent unit, e.g. kip or kip-ft).
  * @param [L] Live load effect (reduced where allowed). Default 0.
  * @param [Lr] Roof live load effect. Default 0.
- * @param [S] Snow load effect. Default 0.
+ * @param [S] Snow load effect, strength level as ASCE/SEI 7-22 gives it. Default 0.
  * @param [R] Rain load effect. Default 0.
  * @param [W] Wind load effect, taken with both signs. Default 0.
  * @param [E] Seismic load effect with Eh and Ev combined (Ev is not computed here; enter |Eh| + |Ev| to cover 1.2D + Ev + Eh and 0.9D - Ev - Eh), taken with both signs. Default 0.
@@ -138,7 +138,7 @@ export function combine(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?
  * @param D Dead load effect (any consistent unit).
  * @param [L] Live load effect. Default 0.
  * @param [Lr] Roof live load effect. Default 0.
- * @param [S] Snow load effect. Default 0.
+ * @param [S] Snow load effect, strength level as ASCE/SEI 7-22 gives it. Default 0.
  * @param [R] Rain load effect. Default 0.
  * @param [W] Wind load effect, taken with both signs. Default 0.
  * @param [E] Seismic load effect (Eh with Ev), taken with both signs. Default 0.
