@@ -25,7 +25,7 @@ import {
 const scratch = scratchDir("loadpath-native-loads-");
 afterAll(() => scratch.remove());
 
-const GRAVITY: readonly LoadCase[] = ["D", "L", "Lr", "S", "R"];
+const GRAVITY = ["D", "L", "Lr", "S", "R"] as const satisfies readonly LoadCase[];
 const METHODS: readonly CombinationOptions[] = [
   { method: "LRFD", halfLive: false },
   { method: "LRFD", halfLive: true },
