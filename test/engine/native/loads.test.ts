@@ -123,8 +123,8 @@ describe("native load formulas", () => {
     hf.destroy();
   });
 
-  it("LRFD 1.2D + 1.6L + 0.5S governs D = 10, L = 20, S = 5 at 46.5; ASD D + L at 30 (ASCE/SEI 7-22 Sec. 2.3.1 combination 2, Sec. 2.4.1 combination 2; recalled from memory)", () => {
-    const { rows, combosTop } = layOut([], [{ D: 10, L: 20, Lr: 0, S: 5, R: 0 }]);
+  it("LRFD 1.2D + 1.6L + 0.5Lr governs D = 10, L = 20, Lr = 5 at 46.5; ASD D + L at 30 (ASCE/SEI 7-22 Sec. 2.3.1 combination 2, Sec. 2.4.1 combination 2; recalled from memory)", () => {
+    const { rows, combosTop } = layOut([], [{ D: 10, L: 20, Lr: 5, S: 0, R: 0 }]);
     const hf = HyperFormula.buildFromSheets({ Loads: toHf(rows) }, { licenseKey: "gpl-v3", useArrayArithmetic: true, smartRounding: false });
     const lrfd = combinationFormulas({}, METHODS[0]!).length;
     expect(hf.getCellValue({ sheet: 0, row: combosTop, col: 5 + lrfd })).toBeCloseTo(46.5, 12);
