@@ -24,6 +24,13 @@ export const KIND_POINT = 1;
 /** Kind code of an applied couple: [kind, x, x, m, 0]. */
 export const KIND_MOMENT = 2;
 
+/**
+ * A line load shorter than this fraction of the span is carried as its resultant at its start:
+ * its intensity gradient (w2 - w1) / length could overflow, and the moment this moves is at most
+ * the resultant times the length, below rounding of everything else.
+ */
+export const SHORT_LINE = 1e-12;
+
 /** Type code of a pin (vertical restraint only). */
 export const TYPE_PIN = 0;
 /** Type code of a fixed support (vertical and rotational restraint). */

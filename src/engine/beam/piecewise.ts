@@ -19,7 +19,7 @@ import type { PackedModel } from "./packed";
 // Module-level aliases of imported bindings used in loops: when the sources are run as CommonJS
 // (tsx, ts-node) every imported binding is read through an accessor, which costs more than the
 // arithmetic around it. Reading each once at load keeps the loops to plain local constants.
-const { doubles, KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SUPPORT_STRIDE } = packed;
+const { doubles, KIND_LINE, KIND_MOMENT, KIND_POINT, LOAD_STRIDE, SHORT_LINE, SUPPORT_STRIDE } = packed;
 
 /** Numbers stored per segment: q0, q1, V0, M0, T0 (EIθ), Y0 (EIy). */
 export const SEG_STRIDE = 6;
@@ -60,12 +60,10 @@ function collectPositions(pm: PackedModel): number {
   scratch[c++] = 0;
   scratch[c++] = pm.span;
   const d = pm.loads;
+  const short = SHORT_LINE * pm.span;
   for (let o = 0; o < pm.loadCount * LOAD_STRIDE; o += LOAD_STRIDE) {
-    if (d[o] === KIND_LINE) {
-      if (d[o + 2] === d[o + 1]) continue; // zero length: no load at all
-      scratch[c++] = d[o + 1];
-      scratch[c++] = d[o + 2];
-    } else scratch[c++] = d[o + 1];
+    scratch[c++] = d[o + 1];
+    if (d[o] === KIND_LINE && d[o + 2] - d[o + 1] > short) scratch[c++] = d[o + 2];
   }
   for (let i = 0; i < pm.supportCount; i++) scratch[c++] = pm.supports[i * SUPPORT_STRIDE];
   return c;
@@ -104,7 +102,7 @@ function distributeLineLoads(pw: Piecewise, pm: PackedModel): void {
     const a = d[o + 1];
     const b = d[o + 2];
     const c = b - a;
-    if (c === 0) continue;
+    if (!(c > SHORT_LINE * pm.span)) continue; // carried as a point load, see loadJumps
     const w1 = d[o + 3];
     const dw = d[o + 4] - w1;
     const slope = dw / c;
@@ -130,7 +128,7 @@ export function buildSegments(pm: PackedModel): Piecewise {
   return pw;
 }
 
-/** Clears the jump arrays for a piecewise and adds the jumps of point loads and couples. */
+/** Clears the jump arrays for a piecewise and adds the jumps of point loads, couples and very short line loads. */
 export function loadJumps(pw: Piecewise, pm: PackedModel): void {
   const size = pw.n + 1;
   if (jumpV.length < size) {
@@ -143,12 +141,15 @@ export function loadJumps(pw: Piecewise, pm: PackedModel): void {
     }
   }
   const d = pm.loads;
+  const short = SHORT_LINE * pm.span;
   for (let o = 0; o < pm.loadCount * LOAD_STRIDE; o += LOAD_STRIDE) {
     const kind = d[o];
-    if (kind === KIND_LINE) continue;
+    const c = d[o + 2] - d[o + 1];
+    if (kind === KIND_LINE && c > short) continue;
     const k = breakpointIndex(pw.buf, size, d[o + 1]);
     if (kind === KIND_POINT) jumpV[k] -= d[o + 3];
     else if (kind === KIND_MOMENT) jumpM[k] -= d[o + 3];
+    else jumpV[k] -= ((d[o + 3] + d[o + 4]) * c) / 2; // a very short line load: its resultant
   }
 }
 
