@@ -15,8 +15,8 @@ import type { DrawnLineLoad, DrawnMoment, DrawnPointLoad, DrawingUnits, MemberDr
 const BAND_BASE = 3;
 /** Tallest band (the largest line load of the member). */
 const BAND_MAX = 12;
-/** Height of one lane: band, label and clearance. */
-const LANE_PITCH = 28;
+/** Clearance above a lane's label. */
+const LANE_CLEARANCE = 5;
 /** Horizontal room a label may use. */
 const MIN_X = 2;
 const MAX_X = 318;
@@ -25,10 +25,23 @@ export const COUPLE_RADIUS = 9;
 
 const markChars = 16;
 
-function lineLoadText(l: DrawnLineLoad, units: DrawingUnits): string {
+function magnitudeText(l: DrawnLineLoad, units: DrawingUnits): string {
   const mag = l.w1 === l.w2 ? formatValue(l.w1) : `${formatValue(l.w1)} to ${formatValue(l.w2)}`;
-  const prefix = l.label !== undefined && l.label.trim() !== "" ? `${truncate(l.label, markChars)}: ` : "";
-  return `${prefix}${mag} ${units.lineLoad}`;
+  return `${mag} ${units.lineLoad}`;
+}
+
+function nameOf(l: DrawnLineLoad): string {
+  return l.label !== undefined && l.label.trim() !== "" ? truncate(l.label, markChars) : "";
+}
+
+/** The label of a line load on one line ("Office: 1.2 kip/ft") or two (name above magnitude). */
+function lineLoadLabel(l: DrawnLineLoad, i: number, units: DrawingUnits, twoLines: boolean): LabelLine[] {
+  const style = { size: FONT.small, fill: PALETTE.load, halo: true };
+  const name = nameOf(l);
+  const magnitude = magnitudeText(l, units);
+  const attrs = { "data-role": "line-label", "data-index": i };
+  if (twoLines && name !== "") return [{ text: name, style, attrs: { "data-role": "line-name", "data-index": i } }, { text: magnitude, style, attrs }];
+  return [{ text: name === "" ? magnitude : `${name}: ${magnitude}`, style, attrs }];
 }
 
 function bandHeight(w: number, wMax: number): number {
@@ -43,21 +56,20 @@ function clampBox(centre: number, width: number): [number, number] {
 
 /**
  * Where a band's label goes: over the middle of the band unless an arrow of a point load or
- * couple would run through it there; then the nearest clear place along the band.
+ * couple would run through it there; then the nearest clear place along the band; null when
+ * there is none.
  */
-function labelSpan(x0: number, x1: number, width: number, avoid: readonly number[]): [number, number] {
+function clearSpan(x0: number, x1: number, width: number, avoid: readonly number[]): [number, number] | null {
   const clear = (b: [number, number]): boolean => avoid.every((x) => x < b[0] - 3 || x > b[1] + 3);
   const mid = (x0 + x1) / 2;
-  const best = clampBox(mid, width);
-  if (clear(best)) return best;
-  const reach = Math.max(x1 - x0, width) / 2 + width;
-  for (let d = 2; d <= reach; d += 2) {
+  const reach = Math.max(x1 - x0, width) / 2;
+  for (let d = 0; d <= reach; d += 2) {
     for (const c of [mid - d, mid + d]) {
       const b = clampBox(c, width);
       if (clear(b)) return b;
     }
   }
-  return best;
+  return null;
 }
 
 interface LaneItem {
@@ -67,33 +79,47 @@ interface LaneItem {
   readonly lane: number;
 }
 
+/** A label and where it goes: one line where clear, else two lines where clear, else one line in the middle. */
+function chooseLabel(l: DrawnLineLoad, i: number, x0: number, x1: number, units: DrawingUnits, avoid: readonly number[]): { label: LabelLine[]; box: [number, number] } {
+  for (const twoLines of [false, true]) {
+    const label = lineLoadLabel(l, i, units, twoLines);
+    const box = clearSpan(x0, x1, labelSize(label).width, avoid);
+    if (box !== null) return { label, box };
+  }
+  const label = lineLoadLabel(l, i, units, false);
+  return { label, box: clampBox((x0 + x1) / 2, labelSize(label).width) };
+}
+
 function assignLanes(lines: readonly DrawnLineLoad[], frame: Frame, units: DrawingUnits, avoid: readonly number[]): LaneItem[] {
   const order = lines.map((l, i) => i).sort((a, b) => (lines[a] as DrawnLineLoad).start - (lines[b] as DrawnLineLoad).start);
   const lanes: [number, number][][] = [];
   const out: LaneItem[] = [];
   for (const i of order) {
     const l = lines[i] as DrawnLineLoad;
-    const label: LabelLine[] = [
-      { text: lineLoadText(l, units), style: { size: FONT.small, fill: PALETTE.load }, attrs: { "data-role": "line-label", "data-index": i } },
-    ];
     const x0 = xOf(frame, Math.min(l.start, l.end));
     const x1 = xOf(frame, Math.max(l.start, l.end));
-    const labelBox = labelSpan(x0, x1, labelSize(label).width, avoid);
-    const foot: [number, number] = [Math.min(x0, labelBox[0]), Math.max(x1, labelBox[1])];
+    const { label, box } = chooseLabel(l, i, x0, x1, units, avoid);
+    const foot: [number, number] = [Math.min(x0, box[0]), Math.max(x1, box[1])];
     let lane = lanes.findIndex((taken) => taken.every(([a, b]) => foot[1] + 4 <= a || b + 4 <= foot[0]));
     if (lane < 0) {
       lanes.push([]);
       lane = lanes.length - 1;
     }
     (lanes[lane] as [number, number][]).push(foot);
-    out.push({ load: l, label, labelBox, lane });
+    out.push({ load: l, label, labelBox: box, lane });
   }
   return out;
 }
 
-/** y of the bottom of a lane's band. */
-function laneBase(lane: number): number {
-  return -(BAND_BASE + lane * LANE_PITCH);
+/** y of the bottom of each lane's band, and of the top of the last lane, from the lanes' labels. */
+function laneBases(items: readonly LaneItem[]): number[] {
+  const count = items.reduce((n, it) => Math.max(n, it.lane + 1), 0);
+  const bases = [-BAND_BASE];
+  for (let k = 0; k < count; k++) {
+    const labelHeight = Math.max(0, ...items.filter((it) => it.lane === k).map((it) => labelSize(it.label).height));
+    bases.push((bases[k] as number) - (BAND_MAX + labelHeight + LANE_CLEARANCE));
+  }
+  return bases;
 }
 
 function bandPieces(l: DrawnLineLoad): [number, number, number, number][] {
@@ -106,8 +132,8 @@ function bandPieces(l: DrawnLineLoad): [number, number, number, number][] {
   ];
 }
 
-function drawBand(item: LaneItem, frame: Frame, wMax: number): string {
-  const yb = laneBase(item.lane);
+function drawBand(item: LaneItem, frame: Frame, wMax: number, bases: readonly number[]): string {
+  const yb = bases[item.lane] as number;
   let out = "";
   let hTop = 0;
   for (const [a, b, wa, wb] of bandPieces(item.load)) {
@@ -205,13 +231,13 @@ export function drawLoads(drawing: MemberDrawing, frame: Frame): Block {
   const arrowXs = [...drawing.points.map((p) => xOf(frame, p.x)), ...drawing.moments.map((m) => xOf(frame, m.x))];
   const lanes = assignLanes(drawing.lines, frame, drawing.units, arrowXs);
   const wMax = Math.max(1e-300, ...drawing.lines.flatMap((l) => [Math.abs(l.w1), Math.abs(l.w2)]));
-  const bands = lanes.map((it) => drawBand(it, frame, wMax)).join("");
-  const laneCount = lanes.reduce((n, it) => Math.max(n, it.lane + 1), 0);
-  const baseY = laneCount > 0 ? laneBase(laneCount) + 2 : -22;
+  const bases = laneBases(lanes);
+  const bands = lanes.map((it) => drawBand(it, frame, wMax, bases)).join("");
+  const baseY = bases.length > 1 ? (bases[bases.length - 1] as number) + 2 : -22;
   const markers = [...pointMarkers(drawing.points, drawing.span, drawing.units), ...momentMarkers(drawing.moments, drawing.units)].sort((a, b) => a.x - b.x);
   const requests: PlaceRequest[] = markers.map((m) => ({ anchorX: xOf(frame, m.x), ...labelSize(m.label), leader: true }));
   const placed = placeLabels(requests, { baseY, direction: "up", step: 6, minX: MIN_X, maxX: MAX_X });
   const drawn = markers.map((m, i) => drawMarker(m, (placed[i] as { box: Box }).box, frame)).join("");
-  const tops = [baseY, ...placed.map((p) => p.box.y0), ...lanes.map((it) => laneBase(it.lane) - LANE_PITCH)];
+  const tops = [baseY, ...placed.map((p) => p.box.y0), bases[bases.length - 1] as number];
   return { body: bands + drawn, top: Math.min(...tops), bottom: 0 };
 }

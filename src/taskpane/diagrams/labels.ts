@@ -26,7 +26,8 @@ export function labelSize(lines: readonly LabelLine[]): { width: number; height:
 }
 
 /**
- * Draw a label centred in its box (the box from {@link labelSize} and place.ts).
+ * Draw a label centred in its box (the box from {@link labelSize} and place.ts), with a halo
+ * unless its style says `halo: false`.
  * @param lines - the label's lines
  * @param box - where it goes
  * @param align - "middle" (default) centres each line; "start"/"end" align to a box edge
@@ -38,7 +39,7 @@ export function drawLabel(lines: readonly LabelLine[], box: Box, align: "start" 
   for (const l of lines) {
     const h = l.style.size * LINE_HEIGHT;
     // Baseline a third of the font size below the middle of the line box: capitals look centred.
-    out += text(x, y + h * 0.5 + l.style.size * 0.35, l.text, { ...l.style, anchor: align }, l.attrs ?? {});
+    out += text(x, y + h * 0.5 + l.style.size * 0.35, l.text, { halo: true, ...l.style, anchor: align }, l.attrs ?? {});
     y += h;
   }
   return out;
@@ -60,6 +61,35 @@ export function wrapText(content: string, maxWidth: number, fontSize: number): s
       lines.push(current);
       current = w;
     } else current = tryLine;
+  }
+  if (current !== "") lines.push(current);
+  return lines;
+}
+
+/**
+ * Join parts with a separator into lines no wider than `maxWidth`, breaking only between parts
+ * (a part wider than a line on its own is broken between words).
+ * @param parts - pieces of text that must stay whole, e.g. "span 30 ft"
+ * @param separator - drawn between parts on one line, e.g. " · "
+ * @param maxWidth - line width in drawing units
+ * @param fontSize - font size in drawing units
+ */
+export function wrapParts(parts: readonly string[], separator: string, maxWidth: number, fontSize: number): string[] {
+  const lines: string[] = [];
+  let current = "";
+  for (const part of parts) {
+    const tryLine = current === "" ? part : current + separator + part;
+    if (textWidth(tryLine, fontSize) <= maxWidth) {
+      current = tryLine;
+      continue;
+    }
+    if (current !== "") lines.push(current);
+    if (textWidth(part, fontSize) <= maxWidth) current = part;
+    else {
+      const broken = wrapText(part, maxWidth, fontSize);
+      lines.push(...broken.slice(0, -1));
+      current = broken[broken.length - 1] ?? "";
+    }
   }
   if (current !== "") lines.push(current);
   return lines;

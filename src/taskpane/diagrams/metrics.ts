@@ -33,7 +33,7 @@ const ADVANCE = table();
 /** Advance of a character not in the table (wide scripts, symbols), in thousandths of an em. */
 const UNKNOWN_ADVANCE = 1000;
 const SAFETY = 1.03;
-const BOLD_FACTOR = 1.1;
+const BOLD_FACTOR = 1.15;
 
 /**
  * Estimated width of a line of text.

@@ -81,35 +81,86 @@ function clashes(candidate: Placed, taken: readonly Box[], gap: number, strictLe
   return strictLeader && candidate.leader !== undefined && taken.some((b) => overlaps(candidate.leader as Box, b, 0));
 }
 
-function placeOne(req: PlaceRequest, taken: readonly Box[], o: PlaceOptions): Placed {
+/** Every placement of a request that clashes with nothing, nearest the baseline first. */
+function* strictPlacements(req: PlaceRequest, taken: readonly Box[], o: PlaceOptions): Generator<Placed> {
+  const gap = o.gap ?? 2;
+  const xs = xCandidates(req.anchorX, req.width, o.minX, o.maxX);
+  for (let k = 0; k <= (o.maxSteps ?? 60); k++) {
+    for (const x0 of xs) {
+      const c = boxAt(req, x0, k * o.step, o);
+      if (!clashes(c, taken, gap, true)) yield c;
+    }
+  }
+}
+
+function firstStrict(req: PlaceRequest, taken: readonly Box[], o: PlaceOptions): Placed | null {
+  for (const p of strictPlacements(req, taken, o)) return p;
+  return null;
+}
+
+/** A placement whose leader may cross other labels (used only when nothing else fits). */
+function placeLoose(req: PlaceRequest, taken: readonly Box[], o: PlaceOptions): Placed {
   const gap = o.gap ?? 2;
   const maxSteps = o.maxSteps ?? 60;
   const xs = xCandidates(req.anchorX, req.width, o.minX, o.maxX);
-  for (const strict of [true, false]) {
-    for (let k = 0; k <= maxSteps; k++) {
-      for (const x0 of xs) {
-        const c = boxAt(req, x0, k * o.step, o);
-        if (!clashes(c, taken, gap, strict)) return c;
-      }
+  for (let k = 0; k <= maxSteps; k++) {
+    for (const x0 of xs) {
+      const c = boxAt(req, x0, k * o.step, o);
+      if (!clashes(c, taken, gap, false)) return c;
     }
   }
   return boxAt(req, xs[0] ?? o.minX, (maxSteps + 1) * o.step, o);
 }
 
+function takenBoxes(o: PlaceOptions, placed: readonly (Placed | undefined)[]): Box[] {
+  return [...(o.obstacles ?? []), ...placed.flatMap((p) => (p === undefined ? [] : boxesOf(p)))];
+}
+
 /**
- * Place labels one after the other (in the order given) without overlaps.
+ * When a label's leader cannot avoid an earlier label, move that earlier label aside (to a
+ * place clear of this anchor) if both then fit without clashes. Returns the new placements or null.
+ */
+function moveAside(req: PlaceRequest, reqs: readonly PlaceRequest[], out: readonly Placed[], o: PlaceOptions): { index: number; moved: Placed; placed: Placed } | null {
+  const margin = 1 + (o.gap ?? 2);
+  for (let k = 0; k < out.length; k++) {
+    const box = (out[k] as Placed).box;
+    if (req.anchorX < box.x0 - margin || req.anchorX > box.x1 + margin) continue;
+    const others = takenBoxes(o, out.map((p, i) => (i === k ? undefined : p)));
+    let tries = 0;
+    for (const alt of strictPlacements(reqs[k] as PlaceRequest, others, o)) {
+      if (++tries > 40) break;
+      if (req.anchorX >= alt.box.x0 - margin && req.anchorX <= alt.box.x1 + margin) continue;
+      const placed = firstStrict(req, [...others, ...boxesOf(alt)], o);
+      if (placed !== null) return { index: k, moved: alt, placed };
+    }
+  }
+  return null;
+}
+
+/**
+ * Place labels one after the other (in the order given) without overlaps. A label whose leader
+ * would run through an earlier label first tries moving that label aside; only when that fails
+ * does its leader cross.
  * @param requests - labels with their anchors and sizes (drawing units)
  * @param options - baseline, direction, step and horizontal bounds
  * @returns one placement per request, same order
  */
 export function placeLabels(requests: readonly PlaceRequest[], options: PlaceOptions): Placed[] {
-  const taken: Box[] = [...(options.obstacles ?? [])];
   const out: Placed[] = [];
   for (const req of requests) {
-    const p = placeOne(req, taken, options);
-    // A leader of a label placed earlier must not run through this one, and vice versa.
-    out.push(p);
-    taken.push(...boxesOf(p));
+    const taken = takenBoxes(options, out);
+    const strict = firstStrict(req, taken, options);
+    if (strict !== null) {
+      out.push(strict);
+      continue;
+    }
+    const aside = moveAside(req, requests, out, options);
+    if (aside !== null) {
+      out[aside.index] = aside.moved;
+      out.push(aside.placed);
+      continue;
+    }
+    out.push(placeLoose(req, taken, options));
   }
   return out;
 }

@@ -8,7 +8,7 @@ import { truncate } from "./escape";
 import { formatLength, formatValue } from "./format";
 import { type Block, memberFrame, SHEET_WIDTH } from "./frame";
 import { drawFreeBody } from "./fbd";
-import { wrapText } from "./labels";
+import { wrapParts, wrapText } from "./labels";
 import { textWidth } from "./metrics";
 import { solveDrawing } from "./model";
 import { REVIEW_NOTICE } from "./notice";
@@ -28,18 +28,32 @@ function lines(content: string, y0: number, size: number, fill: string, role: st
   return { body, height: wrapped.length * lh };
 }
 
+/** Shorten text (ellipsis) until it fits `room` drawing units at the given size. */
+function fit(content: string, room: number, size: number, bold: boolean): string {
+  let t = content;
+  for (let n = Array.from(t).length; n > 1 && textWidth(t, size, bold) > room; n--) t = truncate(content, n - 1);
+  return textWidth(t, size, bold) > room ? "" : t;
+}
+
 function titleBlock(drawing: MemberDrawing): Block {
-  const mark = truncate(drawing.mark, 28);
+  const room = SHEET_WIDTH - 2 * PAD;
+  const mark = fit(truncate(drawing.mark, 28), room, FONT.title, true);
   let body = text(PAD, 13, mark, { size: FONT.title, bold: true }, { "data-role": "mark" });
-  if (drawing.memberType !== undefined && drawing.memberType.trim() !== "") {
-    body += text(PAD + textWidth(mark, FONT.title, true) + 6, 13, truncate(drawing.memberType, 16), { size: FONT.label, fill: PALETTE.muted });
-  }
+  const typeRoom = room - textWidth(mark, FONT.title, true) - 6;
+  const type = drawing.memberType === undefined ? "" : fit(truncate(drawing.memberType, 16), typeRoom, FONT.label, false);
+  if (type.trim() !== "") body += text(PAD + textWidth(mark, FONT.title, true) + 6, 13, type, { size: FONT.label, fill: PALETTE.muted });
   const parts = [`Case ${truncate(drawing.caseLabel, 40)}`];
-  if (drawing.level !== undefined && drawing.level.trim() !== "") parts.push(`Level ${truncate(drawing.level, 20)}`);
+  if (drawing.level !== undefined && drawing.level.trim() !== "") {
+    const level = truncate(drawing.level, 20);
+    parts.push(/^level\b/i.test(level) ? level : `Level ${level}`);
+  }
   if (Number.isFinite(drawing.span)) parts.push(`span ${formatLength(drawing.span)} ${drawing.units.length}`);
   if (drawing.ei !== undefined && drawing.ei > 0) parts.push(`EI ${formatValue(drawing.ei)} ${drawing.units.force}\u00B7${drawing.units.length}\u00B2`);
-  const sub = lines(parts.join(" \u00B7 "), 17, FONT.label, PALETTE.ink, "case");
-  return { body: body + sub.body, top: 0, bottom: 20 + sub.height };
+  // Lines break between parts, so a unit never ends up alone on a line.
+  const wrapped = wrapParts(parts, " \u00B7 ", room, FONT.label);
+  const lh = FONT.label * 1.25;
+  const sub = wrapped.map((l, i) => text(PAD, 17 + FONT.label + i * lh, l, { size: FONT.label }, { "data-role": "case" })).join("");
+  return { body: body + sub, top: 0, bottom: 20 + wrapped.length * lh };
 }
 
 function legend(drawing: MemberDrawing, y0: number): Block {

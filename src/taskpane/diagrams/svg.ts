@@ -63,6 +63,8 @@ export interface TextStyle {
   readonly anchor?: "start" | "middle" | "end";
   readonly fill?: string;
   readonly italic?: boolean;
+  /** A white outline under the letters, so a line running behind the text does not cut it. */
+  readonly halo?: boolean;
 }
 
 /**
@@ -82,6 +84,7 @@ export function text(x: number, y: number, content: string, style: TextStyle, ex
     "font-style": style.italic ? "italic" : undefined,
     "text-anchor": style.anchor ?? "start",
     fill: style.fill ?? PALETTE.ink,
+    ...(style.halo ? { stroke: PALETTE.paper, "stroke-width": 3, "stroke-linejoin": "round", "paint-order": "stroke" } : {}),
     ...extra,
   })}>${escapeXml(content)}</text>`;
 }
