@@ -29,8 +29,10 @@ export interface LineLoadColumns {
   readonly endIntensity: string;
   /** Range of start positions (length from the left end). */
   readonly start: string;
-  /** Range of end positions (length from the left end), >= start. */
-  readonly end: string;
+  /** Range of end positions (length from the left end), >= start; give this or `length`. */
+  readonly end?: string;
+  /** Range of loaded lengths (end = start + length), instead of `end`. */
+  readonly length?: string;
   /** Rows in each range. */
   readonly rows: number;
   /** Boolean array expression selecting the line-load rows of a mixed block (all rows when absent). */
@@ -92,19 +94,31 @@ function sumOf(terms: readonly string[]): string {
 
 /** Slope of each line load, (w2 - w1) / (end - start), with a zero-length row kept finite. */
 function slope(l: LineLoadColumns): string {
-  return `(${l.endIntensity}-${l.startIntensity})/(${l.end}-${l.start}+(${l.end}=${l.start}))`;
+  const width = loadedLength(l);
+  return `(${l.endIntensity}-${l.startIntensity})/(${width}+(${width}=0))`;
+}
+
+/** The end positions of a line-load block as an array expression. */
+function endOf(l: LineLoadColumns): string {
+  if (l.end !== undefined) return l.end;
+  return `(${l.start}+${l.length ?? "0"})`;
+}
+
+/** The loaded lengths of a line-load block as an array expression. */
+function loadedLength(l: LineLoadColumns): string {
+  return l.length ?? `(${l.end ?? l.start}-${l.start})`;
 }
 
 /** Moment of all loads about a position p, each force times (its position - p), down + . */
 function momentAbout(m: SimpleSpanRefs, p: string, sense: 1 | -1): string {
   const terms: string[] = [];
   for (const l of m.lines) {
-    const [w1, w2, a, b] = [l.startIntensity, l.endIntensity, l.start, l.end];
+    const [w1, w2, a, b] = [l.startIntensity, l.endIntensity, l.start, endOf(l)];
     // integral of w(t) (t - p) dt over [a, b] for w linear from w1 to w2: (b-a)(w1(2a+b-3p) + w2(a+2b-3p))/6
     const body =
       sense === 1
-        ? `(${b}-${a})*(${w1}*(2*${a}+${b}-3*${p})+${w2}*(${a}+2*${b}-3*${p}))`
-        : `(${b}-${a})*(${w1}*(3*${p}-2*${a}-${b})+${w2}*(3*${p}-${a}-2*${b}))`;
+        ? `${loadedLength(l)}*(${w1}*(2*${a}+${b}-3*${p})+${w2}*(${a}+2*${b}-3*${p}))`
+        : `${loadedLength(l)}*(${w1}*(3*${p}-2*${a}-${b})+${w2}*(3*${p}-${a}-2*${b}))`;
     terms.push(`SUMPRODUCT(${masked(l.mask, body)})/6`);
   }
   for (const q of m.points) {
@@ -136,7 +150,7 @@ export function reactionFormulas(member: SimpleSpanRefs): ReactionFormulas {
 export function totalLoadFormula(member: SimpleSpanLoads): string {
   const terms: string[] = [];
   for (const l of member.lines) {
-    terms.push(`SUMPRODUCT(${masked(l.mask, `(${l.startIntensity}+${l.endIntensity})*(${l.end}-${l.start})`)})/2`);
+    terms.push(`SUMPRODUCT(${masked(l.mask, `(${l.startIntensity}+${l.endIntensity})*${loadedLength(l)}`)})/2`);
   }
   // a plain range goes to SUM: one program gives #VALUE! for SUMPRODUCT over a single blank cell
   for (const q of member.points) terms.push(q.mask === undefined ? `SUM(${q.force})` : `SUMPRODUCT(${q.mask}*${q.force})`);
@@ -187,6 +201,8 @@ export interface ExtremesBlock {
   readonly momentMin: string;
   /** Shear of largest magnitude, signed (the first in x order on a tie), force. */
   readonly shearMax: string;
+  /** Largest shear magnitude (>= 0), force. */
+  readonly shearMaxAbs: string;
   /** Number of breakpoints (rows below the header). */
   readonly breakpoints: number;
 }
@@ -197,7 +213,14 @@ function breakpointFormulas(m: SimpleSpanRefs): string[] {
   if (m.leftPin !== undefined && m.leftPin !== "0") out.push(m.leftPin);
   if (m.rightPin !== undefined && m.rightPin !== m.span) out.push(m.rightPin);
   const rowsOf = (range: string, rows: number): string[] => cellsOfColumnRange(range, rows).map((cell) => `0+${cell}`);
-  for (const l of m.lines) out.push(...rowsOf(l.start, l.rows), ...rowsOf(l.end, l.rows));
+  for (const l of m.lines) {
+    out.push(...rowsOf(l.start, l.rows));
+    if (l.end !== undefined) out.push(...rowsOf(l.end, l.rows));
+    else {
+      const lengths = cellsOfColumnRange(l.length ?? "0", l.rows);
+      out.push(...cellsOfColumnRange(l.start, l.rows).map((a, i) => `0+${a}+${lengths[i]}`));
+    }
+  }
   for (const q of m.points) out.push(...rowsOf(q.at, q.rows));
   return out;
 }
@@ -209,8 +232,8 @@ function shearAtLeftEnd(m: SimpleSpanRefs, r: ReactionFormulas, x: string, mid: 
   const parts = [`${r.left}*(${xa}<${mid})+${r.right}*(${xb}<${mid})`];
   for (const q of m.points) parts.push(`-SUMPRODUCT(${masked(q.mask, `(${q.at}<${mid})*${q.force}`)})`);
   for (const l of m.lines) {
-    const [w1, w2, a, b] = [l.startIntensity, l.endIntensity, l.start, l.end];
-    parts.push(`-SUMPRODUCT(${masked(l.mask, `(${b}<=${mid})*(${w1}+${w2})*(${b}-${a})`)})/2`);
+    const [w1, w2, a, b] = [l.startIntensity, l.endIntensity, l.start, endOf(l)];
+    parts.push(`-SUMPRODUCT(${masked(l.mask, `(${b}<=${mid})*(${w1}+${w2})*${loadedLength(l)}`)})/2`);
     parts.push(`-SUMPRODUCT(${masked(l.mask, `(${a}<${mid})*(${b}>${mid})*(${w1}*(${x}-${a})+${slope(l)}*(${x}-${a})^2/2)`)})`);
   }
   return parts.join("");
@@ -219,14 +242,14 @@ function shearAtLeftEnd(m: SimpleSpanRefs, r: ReactionFormulas, x: string, mid: 
 /** -(total intensity at the segment's left end): V1 of V(x + u) = V0 + V1 u + V2 u^2. */
 function shearSlope(m: SimpleSpanRefs, x: string, mid: string): string {
   const terms = m.lines.map(
-    (l) => `SUMPRODUCT(${masked(l.mask, `(${l.start}<${mid})*(${l.end}>${mid})*(${l.startIntensity}+${slope(l)}*(${x}-${l.start}))`)})`,
+    (l) => `SUMPRODUCT(${masked(l.mask, `(${l.start}<${mid})*(${endOf(l)}>${mid})*(${l.startIntensity}+${slope(l)}*(${x}-${l.start}))`)})`,
   );
   return `-(${sumOf(terms)})`;
 }
 
 /** -(sum of slopes of the active line loads) / 2: V2 of the segment's shear polynomial. */
 function shearCurvature(m: SimpleSpanRefs, mid: string): string {
-  const terms = m.lines.map((l) => `SUMPRODUCT(${masked(l.mask, `(${l.start}<${mid})*(${l.end}>${mid})*${slope(l)}`)})`);
+  const terms = m.lines.map((l) => `SUMPRODUCT(${masked(l.mask, `(${l.start}<${mid})*(${endOf(l)}>${mid})*${slope(l)}`)})`);
   return `-(${sumOf(terms)})/2`;
 }
 
@@ -309,6 +332,7 @@ export function extremesBlock(member: SimpleSpanRefs, reactions: ReactionFormula
     momentMax: `IF(${hi}>${num(NATIVE_NOISE)}*${scale},${hi},0)`,
     momentMin: `IF(${lo}<-${num(NATIVE_NOISE)}*${scale},${lo},0)`,
     shearMax: n > 1 ? ref(n - 2, "V governing") : "0",
+    shearMaxAbs: n > 1 ? `ABS(${ref(n - 2, "V governing")})` : "0",
     breakpoints: n,
   };
 }

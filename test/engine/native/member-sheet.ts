@@ -85,22 +85,23 @@ export function layOutMembers(sheet: string, cases: readonly MemberCase[]): Memb
     const pins = { leftPin: cellRef(sheet, r0, 3), rightPin: cellRef(sheet, r0, 5) };
     if (c.mixedBlock) {
       loadRows = c.lines.length + c.points.length + 1;
-      ["kind", "magnitude", "start", "end", "end magnitude"].forEach((h, j) => put(rows, r0 + 1, j, h));
+      // like the takedown's blocks: a blank start is 0, line loads give their loaded length
+      ["kind", "magnitude", "start", "end", "end magnitude", "length"].forEach((h, j) => put(rows, r0 + 1, j, h));
       let r = first;
       for (const l of c.lines) {
-        [l.kind, l.w1, l.start, l.end, l.w2].forEach((v, j) => put(rows, r, j, v));
+        [l.kind, l.w1, l.start === 0 ? null : l.start, l.end, l.w2, l.end - l.start].forEach((v, j) => put(rows, r, j, v));
         r++;
       }
       for (const p of c.points) {
-        [p.kind, p.p, p.x].forEach((v, j) => put(rows, r, j, v));
+        [p.kind, p.p, p.x === 0 ? null : p.x].forEach((v, j) => put(rows, r, j, v));
         r++;
       }
       const kind = at(0, loadRows);
       refs = {
         span,
         ...pins,
-        lines: [{ startIntensity: at(1, loadRows), endIntensity: at(4, loadRows), start: at(2, loadRows), end: at(3, loadRows), rows: loadRows, mask: `(${kind}="line")` }],
-        points: [{ force: at(1, loadRows), at: at(2, loadRows), rows: loadRows, mask: `(${kind}="point")` }],
+        lines: [{ startIntensity: at(1, loadRows), endIntensity: at(4, loadRows), start: at(2, loadRows), length: at(5, loadRows), rows: loadRows, mask: `(${kind}="line")` }],
+        points: [{ force: at(1, loadRows), at: at(2, loadRows), rows: loadRows, mask: `(${kind}<>"line")` }],
       };
     } else {
       loadRows = Math.max(c.lines.length, c.points.length) + 1;
