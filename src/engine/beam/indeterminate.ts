@@ -115,10 +115,10 @@ export function solveIndeterminate(pm: PackedModel): IndeterminateSolution | nul
   const reactions = new Array<number>(n);
   const couples = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    reactions[i] = b[i];
+    reactions[i] = b[i] + 0; // + 0 turns -0 into 0
     couples[i] = 0;
   }
-  for (let j = 0; j < fixed.length; j++) couples[fixed[j]] = b[n + j] * L;
+  for (let j = 0; j < fixed.length; j++) couples[fixed[j]] = b[n + j] * L + 0;
   reactionJumps(pw, pm, reactions, couples);
   march(pw, b[n + fixed.length] * L2, b[n + fixed.length + 1] * L3);
   return { reactions, couples, piecewise: pw };

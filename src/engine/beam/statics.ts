@@ -54,8 +54,8 @@ export function twoPinReactions(pm: PackedModel, first: number, second: number):
   const xb = pm.supports[second * SUPPORT_STRIDE];
   const d = xb - xa;
   const r = [0, 0];
-  r[second] = clockwiseMomentAbout(pm, xa) / d;
-  r[first] = -clockwiseMomentAbout(pm, xb) / d;
+  r[second] = clockwiseMomentAbout(pm, xa) / d + 0; // + 0 turns -0 into 0
+  r[first] = -clockwiseMomentAbout(pm, xb) / d + 0;
   return r;
 }
 
@@ -66,5 +66,5 @@ export function twoPinReactions(pm: PackedModel, first: number, second: number):
  */
 export function cantileverReactions(pm: PackedModel, fixed: number): [number, number] {
   const s = pm.supports[fixed * SUPPORT_STRIDE];
-  return [totalLoad(pm), clockwiseMomentAbout(pm, s)];
+  return [totalLoad(pm) + 0, clockwiseMomentAbout(pm, s) + 0]; // + 0 turns -0 into 0
 }
