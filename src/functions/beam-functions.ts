@@ -14,7 +14,7 @@ import { fail, ok, type Result } from "../engine/errors";
 import { solveBeam } from "../engine/beam";
 import type { BeamSolution } from "../engine/beam/types";
 import { arg, asHostMatrix, asHostNumber, defineArgs, formatNumber, runFunction, type Grid } from "./args";
-import { beamModel, DEFLECTION_UNITS, UNITS_CHOICES, withRangeRow } from "./beam-args";
+import { beamModel, DEFLECTION_UNITS, UNITS_CHOICES, withRangeRow, type MemberInput } from "./beam-args";
 import { diagramTable } from "./diagram";
 import { DEFAULT_STATIONS, MAX_LOAD_ROWS, MAX_STATIONS, MAX_SUPPORT_ROWS, padToSize, shapeOfValue, spillSize } from "./spill";
 
@@ -40,18 +40,38 @@ const DEFLECTION_AT_ARGS = defineArgs(SPAN, LOADS, E, I, UNITS, X, SUPPORTS);
 const REQUIRED_I_ARGS = defineArgs(SPAN, LOADS, E, arg.number("ratio", { greaterThan: 0 }), UNITS, SUPPORTS);
 const DIAGRAM_ARGS = defineArgs(SPAN, LOADS, SUPPORTS, arg.optionalNumber("stations", DEFAULT_STATIONS, { atLeast: 1, atMost: MAX_STATIONS, integer: true }));
 
+/** A solved member with the range rows its loads and supports came from. */
+interface Solved {
+  readonly solution: BeamSolution;
+  readonly input: MemberInput;
+}
+
 /** Solve the member the arguments describe; engine errors are restated with the user's range rows. */
-function solve(a: { readonly span: number; readonly loads: number | Grid; readonly supports: Grid | undefined }): Result<BeamSolution> {
+function solve(a: { readonly span: number; readonly loads: number | Grid; readonly supports: Grid | undefined }): Result<Solved> {
   const input = beamModel(a.span, a.loads, a.supports);
   if (!input.ok) return input;
   const solved = solveBeam(input.value.model);
-  return solved.ok ? solved : { ok: false, error: withRangeRow(solved.error, input.value) };
+  return solved.ok ? ok({ solution: solved.value, input: input.value }) : { ok: false, error: withRangeRow(solved.error, input.value) };
 }
 
 /** Apply `f` to a solved member. */
-function withSolution<T>(a: Parameters<typeof solve>[0], f: (s: BeamSolution) => Result<T>): Result<T> {
+function withSolution<T>(a: Parameters<typeof solve>[0], f: (s: BeamSolution, input: MemberInput) => Result<T>): Result<T> {
   const s = solve(a);
-  return s.ok ? f(s.value) : s;
+  return s.ok ? f(s.value.solution, s.value.input) : s;
+}
+
+/**
+ * One value per support placed in the cell of its supports row (a blank row gets ""); with the
+ * default supports (none given) the two pins fill the first two cells.
+ */
+function alignToSupportRows(values: readonly number[], input: MemberInput, cols: number): Result<(number | string)[][]> {
+  const cellOf = input.supportRows.length > 0 ? input.supportRows.map((r) => r - 1) : values.map((_, i) => i);
+  if (cellOf.some((c) => c >= cols)) {
+    return fail("badShape", `the range is blank, so pins at 0 and span apply, but its ${cols} row leaves room for ${cols} reaction; leave supports out or fill the support rows.`, "supports");
+  }
+  const row: (number | string)[] = Array.from({ length: cols }, () => "");
+  values.forEach((v, i) => (row[cellOf[i]!] = v));
+  return ok([row]);
 }
 
 /** A position argument checked to lie on the member. */
@@ -68,8 +88,8 @@ function sideAt(x: number, spanLen: number): "left" | "right" {
  * Vertical reactions (upward +) at every support, in the order the supports are given, spilled
  * across one row; what = "moment" gives instead the bending moment in the member at each support
  * (sagging +, so a continuous or fixed support usually shows a negative value).
- * The row has one cell per row of the supports range (2 when supports is left out); blank support
- * rows give blank cells.
+ * The row has one cell per row of the supports range, each reaction in the cell of its support's
+ * row (a blank row gives a blank cell); 2 cells when supports is left out.
  * @customfunction REACTIONS
  * @param span Member length (ft, m or any length unit consistent with the loads).
  * @param loads A uniform line load over the whole length (e.g. kip/ft), or a range with one load per row: kind | magnitude | start | end | end magnitude (kind line, point or moment), or magnitude | start | end | end magnitude. Gravity loads down positive.
@@ -82,13 +102,7 @@ export function reactions(span: any, loads: any[][], supports?: any[][], what?: 
   const size = spillSize("REACTIONS", raw.map(shapeOfValue))!;
   return asHostMatrix(
     runFunction(REACTIONS_ARGS, raw, (a) =>
-      withSolution(a, (s) => {
-        const values = a.what === "moment" ? s.supportMoments : s.reactions;
-        const row = padToSize([[...values]], size);
-        return row
-          ? ok(row)
-          : fail("badShape", `the range is blank, so pins at 0 and span apply, but its ${size.cols} row leaves room for ${size.cols} reaction; leave supports out or fill the support rows.`, "supports");
-      }),
+      withSolution(a, (s, input) => alignToSupportRows(a.what === "moment" ? s.supportMoments : s.reactions, input, size.cols)),
     ),
   );
 }
