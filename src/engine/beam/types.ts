@@ -38,9 +38,12 @@ export interface MomentLoad {
   readonly m: number;
 }
 
+/** Any load on the member. */
 export type BeamLoad = LineLoad | PointLoad | MomentLoad;
 
+/** One straight member with constant EI: its length, supports and loads (any consistent units). */
 export interface BeamModel {
+  /** Length of the member, > 0. */
   readonly span: number;
   readonly supports: readonly Support[];
   readonly loads: readonly BeamLoad[];
@@ -65,7 +68,12 @@ export interface BeamSolution {
   readonly reactionMoments: readonly number[];
   /** Bending moment in the member at each support position (sagging +). */
   readonly supportMoments: readonly number[];
-  /** Shear at x; side "right" (default) is just right of x, "left" just left of x. */
+  /**
+   * Shear at x; side "right" (default) is just right of x, "left" just left of x. At x = 0 and
+   * x = span both sides give the value inside the member. NaN for x outside 0..span (positions
+   * within 1e-12 x span of an end count as the end) or not finite; the same holds for the other
+   * *At methods.
+   */
   shearAt(x: number, side?: "left" | "right"): number;
   /** Bending moment at x (sagging +); side as for shear (differs only at an applied moment). */
   momentAt(x: number, side?: "left" | "right"): number;
@@ -85,7 +93,8 @@ export interface BeamSolution {
   minDeflectionEI(): Extreme;
   /**
    * Positions where something changes: ends, supports, load ends, point loads, and the
-   * interior points where V = 0 or slope = 0. Sorted, unique.
+   * interior points where V = 0, q = 0 (largest |V| inside a segment) or slope = 0. Sorted,
+   * unique; a fresh array on every call.
    */
   criticalPoints(): number[];
 }
