@@ -35,6 +35,8 @@ interface Measured {
 interface Layout {
   readonly svg: { x0: number; y0: number; x1: number; y1: number };
   readonly texts: readonly Measured[];
+  /** Texts that an arrow of another load runs through (line-load labels excepted: haloed). */
+  readonly crossed: readonly string[];
 }
 
 async function show(page: Page, svg: string, font: keyof typeof FONTS, width: number): Promise<Layout> {
@@ -56,7 +58,22 @@ async function show(page: Page, svg: string, font: keyof typeof FONTS, width: nu
         y1: b.bottom,
       };
     });
-    return { svg: { x0: r.left, y0: r.top, x1: r.right, y1: r.bottom }, texts };
+    const crossed: string[] = [];
+    for (const g of Array.from(root.querySelectorAll('[data-role="point-load"], [data-role="moment-load"]'))) {
+      const shaft = g.querySelector("line");
+      if (shaft === null) continue;
+      const a = shaft.getBoundingClientRect();
+      for (const t of Array.from(root.querySelectorAll("text"))) {
+        const role = t.getAttribute("data-role") ?? "";
+        if (g.contains(t) || role === "line-label" || role === "line-name") continue;
+        const b = t.getBoundingClientRect();
+        // A vertical line's box has no width: give the shaft its stroke's width back.
+        const w = Math.min(a.right + 0.8, b.right) - Math.max(a.left - 0.8, b.left);
+        const h = Math.min(a.bottom, b.bottom) - Math.max(a.top, b.top);
+        if (w > 0 && h > 2) crossed.push(t.textContent ?? "");
+      }
+    }
+    return { svg: { x0: r.left, y0: r.top, x1: r.right, y1: r.bottom }, texts, crossed };
   });
 }
 
@@ -111,6 +128,7 @@ describe("drawings in Chromium", () => {
         expect(layout.svg.x1 - layout.svg.x0).toBeCloseTo(PANE_WIDTH, 0);
         expect(layout.texts.length).toBeGreaterThan(5);
         expect(problems(layout)).toEqual([]);
+        expect(layout.crossed, "labels crossed by another load's arrow").toEqual([]);
         await page.locator("svg").screenshot({ path: resolve(OUT, `${name}-${PANE_WIDTH}-${font}.png`) });
       });
     }
