@@ -18,7 +18,9 @@ export type SupportLayout =
   | { readonly kind: "cantilever"; readonly fixed: number }
   | { readonly kind: "indeterminate" };
 
-const INDETERMINATE: { kind: "indeterminate" } = { kind: "indeterminate" };
+const INDETERMINATE: SupportLayout = Object.freeze({ kind: "indeterminate" });
+const TWO_PINS: SupportLayout = Object.freeze({ kind: "twoPins", first: 0, second: 1 });
+const CANTILEVER: SupportLayout = Object.freeze({ kind: "cantilever", fixed: 0 });
 
 function positionOf(pm: PackedModel, i: number): number {
   return pm.supports[i * SUPPORT_STRIDE];
@@ -86,13 +88,9 @@ export function classifySupports(pm: PackedModel): Result<SupportLayout> {
         : `the member is unstable (all ${n} pins are at x = ${x0}, so it can turn about that point); add a support elsewhere or make one fixed.`;
     return fail("unstable", detail, "supports");
   }
-  if (n === 2) {
-    if (positionOf(pm, 0) === positionOf(pm, 1)) return coincidence(pm) as Result<never>;
-    if (fixedCount === 0) return { ok: true, value: { kind: "twoPins", first: 0, second: 1 } };
-    return { ok: true, value: INDETERMINATE };
-  }
-  if (n === 1) return { ok: true, value: { kind: "cantilever", fixed: 0 } };
-  const clash = coincidence(pm);
+  if (n === 1) return { ok: true, value: CANTILEVER };
+  const clash = n === 2 && positionOf(pm, 0) !== positionOf(pm, 1) ? null : coincidence(pm);
   if (clash) return clash;
+  if (n === 2 && fixedCount === 0) return { ok: true, value: TWO_PINS };
   return { ok: true, value: INDETERMINATE };
 }
