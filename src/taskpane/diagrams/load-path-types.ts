@@ -2,6 +2,19 @@
  * Input of the load-path drawing: one member at the centre, what it carries (upstream, up to
  * the deck zones) and where its reactions go (downstream, down to the foundations), as two
  * trees whose edges carry the force passed along them.
+ *
+ * Filling it from the takedown graph, for member M and one case:
+ * - `upstream`: one branch per end of every member U that names M as its start or end support:
+ *   `{ mark: U, memberType: U's type, value: U's reaction at that end, at: that end's
+ *   "Start at"/"End at" position on M, children: U's own upstream }`; a member's zone loads are
+ *   leaves `{ mark: zone, memberType: "zone", value: trib x area load, unit: "kip/ft" (or
+ *   "kN/m"), note: "trib 6.5 ft" }`, and rows of the Loads table leaves of the same kind.
+ * - `downstream`: one branch per end of M: `{ mark: the support, memberType: its type, value:
+ *   M's reaction at that end, at: the position on the support, note: "start" or "end",
+ *   children: the support's own downstream }`. Further down, a value is that member's whole
+ *   reaction (or a column's cumulative load at that level), not only M's share.
+ * - Members on a cycle (reported as a problem by the takedown) are left out; the drawing also
+ *   stops at 24 levels whatever it is given.
  */
 
 /**

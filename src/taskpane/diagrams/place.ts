@@ -164,12 +164,3 @@ export function placeLabels(requests: readonly PlaceRequest[], options: PlaceOpt
   }
   return out;
 }
-
-/**
- * The smallest box holding all the given boxes, or undefined for none.
- * @param boxes - boxes to enclose
- */
-export function extent(boxes: readonly Box[]): Box | undefined {
-  if (boxes.length === 0) return undefined;
-  return boxes.reduce((a, b) => ({ x0: Math.min(a.x0, b.x0), y0: Math.min(a.y0, b.y0), x1: Math.max(a.x1, b.x1), y1: Math.max(a.y1, b.y1) }));
-}
