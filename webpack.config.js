@@ -3,6 +3,7 @@
    generated from the @customfunction JSDoc of the files listed in FUNCTION_SOURCES. */
 const path = require("path");
 const fs = require("fs");
+const webpack = require("webpack");
 const HtmlWebpackPlugin = require("html-webpack-plugin");
 const CopyWebpackPlugin = require("copy-webpack-plugin");
 const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin");
@@ -11,6 +12,11 @@ const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin"
 const FUNCTION_SOURCES = ["./src/functions/beam-functions.ts", "./src/functions/load-functions.ts"].filter((f) =>
   fs.existsSync(path.resolve(__dirname, f)),
 );
+
+/** Entry of the demo page (the pane over the in-memory workbook, with a sample building). */
+const DEMO_ENTRY = "./src/taskpane-demo/demo.ts";
+/** The sample building the demo page opens, turned into JSON at build time. */
+const DEMO_SAMPLE = process.env.LOADPATH_DEMO_SAMPLE || "sample-workbooks/takedown-sample.xlsx";
 
 const DEV_URL = "https://localhost:3000/";
 const PROD_URL = process.env.LOADPATH_URL || "https://localhost:3000/";
@@ -99,5 +105,43 @@ module.exports = async (env, argv) => {
     performance: { hints: false },
     optimization: { minimize: false },
   };
-  return fs.existsSync(path.resolve(__dirname, "src/cli/main.ts")) ? [web, cli] : [web];
+  // The pane outside Excel (dist/pane-demo.html) over the in-memory workbook: its own build, so
+  // HyperFormula never enters the bundle Excel loads. It loads dist/functions.js at run time, as
+  // Excel does. Node built-ins imported by the headless modules (used only from Node) are empty here.
+  const demo = {
+    name: "demo",
+    mode,
+    devtool: "source-map",
+    target: ["web", "es2020"],
+    entry: { "pane-demo": DEMO_ENTRY },
+    output: { path: path.resolve(__dirname, "dist"), filename: "[name].js", clean: false },
+    resolve: { extensions: [".ts", ".tsx", ".js"], fallback: { fs: false, path: false, vm: false } },
+    module: { rules: [tsRule] },
+    performance: { hints: false },
+    plugins: [
+      new webpack.NormalModuleReplacementPlugin(/^node:/, (resource) => {
+        resource.request = resource.request.replace(/^node:/, "");
+      }),
+      new HtmlWebpackPlugin({
+        filename: "pane-demo.html",
+        template: "./src/taskpane-demo/pane-demo.html",
+        chunks: ["pane-demo"],
+        inject: "body",
+        scriptLoading: "blocking",
+      }),
+      new CopyWebpackPlugin({
+        patterns: [
+          fs.existsSync(path.resolve(__dirname, DEMO_SAMPLE))
+            ? {
+                from: DEMO_SAMPLE,
+                to: "samples/takedown-sample.json",
+                transform: { transformer: (content) => require("./src/taskpane-demo/sample-json.cjs").xlsxToJson(content), cache: false },
+              }
+            : { from: "src/taskpane-demo/demo-building.json", to: "samples/takedown-sample.json" },
+        ],
+      }),
+    ],
+  };
+  const withDemo = fs.existsSync(path.resolve(__dirname, DEMO_ENTRY)) ? [demo] : [];
+  return fs.existsSync(path.resolve(__dirname, "src/cli/main.ts")) ? [web, cli, ...withDemo] : [web, ...withDemo];
 };

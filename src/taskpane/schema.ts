@@ -1,18 +1,22 @@
 /**
  * The input tables as the pane presents them: the three roles, their expected columns with the
- * units shown beside each, and which of the workbook's tables plays which role.
- * Header matching itself belongs to the takedown engine (src/engine/takedown/tables.ts).
+ * units shown beside each, and which of the workbook's tables plays which role. The expected
+ * columns and the header matching are the takedown engine's (src/engine/takedown/tables.ts);
+ * this module only adds the words shown in the pane.
  */
+import { LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC, type TableSpec } from "../engine/takedown/tables";
+import { UNIT_NAMES } from "../engine/takedown/units";
 import type { TableInfo } from "../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../workbook/takedown-api";
 
 /** The three input tables of design.md section 4. */
 export type TableRole = "zones" | "members" | "loads";
 
+/** Roles in the order the pane lists them. */
 export const ROLES: readonly TableRole[] = ["zones", "members", "loads"];
 
-/** One expected column: its default header, whether a build needs it, and its units. */
-export interface ColumnSpec {
+/** One expected column as the pane shows it. */
+export interface ColumnView {
   readonly header: string;
   readonly required: boolean;
   /** Units per system, or null for text and plain numbers. */
@@ -21,51 +25,56 @@ export interface ColumnSpec {
   readonly hint: string;
 }
 
-const LENGTH = { US: "ft", SI: "m" } as const;
-const AREA_LOAD = { US: "psf", SI: "kPa" } as const;
-const LINE_LOAD = { US: "plf", SI: "kN/m" } as const;
+const SPECS: Readonly<Record<TableRole, TableSpec<string>>> = { zones: ZONES_SPEC, members: MEMBERS_SPEC, loads: LOADS_SPEC };
 
-function col(header: string, required: boolean, units: ColumnSpec["units"], hint: string): ColumnSpec {
-  return { header, required, units, hint };
+/** Plain words for each default header (display only). */
+const HINTS: Readonly<Record<string, string>> = {
+  Zone: "name of the load zone",
+  D: "dead load",
+  L: "floor live load",
+  Lr: "roof live load",
+  S: "snow load",
+  R: "rain load",
+  Reducible: "yes/no: live load may be reduced",
+  Mark: "member mark",
+  Type: "beam, girder, joist, column, wall or foundation",
+  Level: "floor or roof level",
+  Span: "length between supports",
+  Trib: "tributary width",
+  "Start support": "mark of what holds the start",
+  "Start at": "position along that support",
+  "End support": "mark of what holds the end",
+  "End at": "position along that support",
+  KLL: "live load element factor",
+  wD: "extra dead line load",
+  wL: "extra live line load",
+  wLr: "extra roof live line load",
+  wS: "extra snow line load",
+  wR: "extra rain line load",
+  "Start overhang": "length beyond the start support",
+  "End overhang": "length beyond the end support",
+  Kind: "area, line or point",
+  "Zone or case": "zone (area load) or load case",
+  Magnitude: "line load or point load",
+  Width: "width loaded (area loads)",
+  From: "start along the member",
+  To: "end along the member",
+};
+
+function viewsOf(spec: TableSpec<string>): ColumnView[] {
+  return Object.values(spec.columns).map((c) => ({
+    header: c.header,
+    required: c.required,
+    units: c.quantity === "none" ? null : UNIT_NAMES[c.quantity],
+    hint: HINTS[c.header] ?? "",
+  }));
 }
 
-/** Expected columns per role, in design.md section 4 order. */
-export const ROLE_COLUMNS: Readonly<Record<TableRole, readonly ColumnSpec[]>> = {
-  zones: [
-    col("Zone", true, null, "name of the load zone"),
-    col("D", false, AREA_LOAD, "dead load"),
-    col("L", false, AREA_LOAD, "floor live load"),
-    col("Lr", false, AREA_LOAD, "roof live load"),
-    col("S", false, AREA_LOAD, "snow load"),
-    col("R", false, AREA_LOAD, "rain load"),
-    col("Reducible", false, null, "yes/no: live load may be reduced"),
-  ],
-  members: [
-    col("Mark", true, null, "member mark"),
-    col("Type", false, null, "beam, girder, joist, column, wall or foundation"),
-    col("Level", false, null, "floor or roof level"),
-    col("Span", true, LENGTH, "length between supports"),
-    col("Zone", false, null, "load zone over the member"),
-    col("Trib", false, LENGTH, "tributary width"),
-    col("Start support", true, null, "mark of what holds the start"),
-    col("Start at", false, LENGTH, "position along that support"),
-    col("End support", false, null, "mark of what holds the end"),
-    col("End at", false, LENGTH, "position along that support"),
-    col("KLL", false, null, "live load element factor"),
-    col("wD", false, LINE_LOAD, "extra dead line load"),
-    col("wL", false, LINE_LOAD, "extra live line load"),
-    col("wLr", false, LINE_LOAD, "extra roof live line load"),
-    col("wS", false, LINE_LOAD, "extra snow line load"),
-  ],
-  loads: [
-    col("Mark", true, null, "member loaded"),
-    col("Kind", true, null, "area, line or point"),
-    col("Zone or case", true, null, "zone (area) or load case"),
-    col("Magnitude", false, null, "line load (plf or kN/m) or point load (lb or kN)"),
-    col("Width", false, LENGTH, "width loaded (area loads)"),
-    col("From", false, LENGTH, "start along the member"),
-    col("To", false, LENGTH, "end along the member"),
-  ],
+/** Expected columns per role, in the engine's order. */
+export const ROLE_COLUMNS: Readonly<Record<TableRole, readonly ColumnView[]>> = {
+  zones: viewsOf(ZONES_SPEC),
+  members: viewsOf(MEMBERS_SPEC),
+  loads: viewsOf(LOADS_SPEC),
 };
 
 /** Plain-words title of each role. */
@@ -75,22 +84,22 @@ export const ROLE_TITLES: Readonly<Record<TableRole, string>> = {
   loads: "Extra loads",
 };
 
-/** A header cell reduced for comparison: case-insensitive, a trailing "(unit)" dropped. */
-function bare(header: string): string {
-  return header.replace(/\s*\([^)]*\)\s*$/, "").trim().toLowerCase();
+/** The engine's match of a header row (units are not judged here: the build reports them). */
+function matchHeaders(role: TableRole, headers: readonly string[], mapping: ColumnMapping): Readonly<Partial<Record<string, number>>> {
+  const data = { sheet: "", top: 0, left: 0, values: [headers] };
+  return matchTable(SPECS[role], data, "US", mapping[role]).table.columns;
 }
 
 /**
- * For each expected column of a role, the user's header that carries it (mapped by the user,
- * else the same name), or null.
+ * For each expected column of a role, the user's header that carries it (the default name or
+ * the user's mapping, as the engine matches them), or null.
  */
 export function matchColumns(role: TableRole, headers: readonly string[], mapping: ColumnMapping): Record<string, string | null> {
-  const chosen = mapping[role] ?? {};
+  const found = matchHeaders(role, headers, mapping);
   const out: Record<string, string | null> = {};
-  for (const spec of ROLE_COLUMNS[role]) {
-    const mapped = chosen[spec.header];
-    const byName = headers.find((h) => bare(h) === bare(spec.header));
-    out[spec.header] = mapped && headers.includes(mapped) ? mapped : byName ?? null;
+  for (const [key, c] of Object.entries(SPECS[role].columns)) {
+    const index = found[key];
+    out[c.header] = index === undefined ? null : headers[index] ?? null;
   }
   return out;
 }
@@ -101,21 +110,25 @@ export function missingColumns(role: TableRole, headers: readonly string[], mapp
   return ROLE_COLUMNS[role].filter((c) => c.required && found[c.header] === null).map((c) => c.header);
 }
 
+/** True when a zones table has at least one load case column. */
+function hasLoadCase(headers: readonly string[], mapping: ColumnMapping): boolean {
+  const found = matchColumns("zones", headers, mapping);
+  return ["D", "L", "Lr", "S", "R"].some((c) => found[c] !== null);
+}
+
 /** The first table whose headers carry every required column of each role. */
 export function detectRoles(tables: readonly TableInfo[], mapping: ColumnMapping): Partial<Record<TableRole, string>> {
   const out: Partial<Record<TableRole, string>> = {};
   const taken = new Set<string>();
-  // Members first: its required columns are the most specific, so a zones table is not mistaken for it.
+  // Members first: its required columns are the most specific, so no other table is taken for it.
   for (const role of ["members", "loads", "zones"] as const) {
-    const hit = tables.find((t) => !taken.has(t.name) && missingColumns(role, t.headers, mapping).length === 0 && (role !== "zones" || hasLoadColumn(t.headers)));
+    const hit = tables.find(
+      (t) => !taken.has(t.name) && missingColumns(role, t.headers, mapping).length === 0 && (role !== "zones" || hasLoadCase(t.headers, mapping)),
+    );
     if (hit) {
       out[role] = hit.name;
       taken.add(hit.name);
     }
   }
   return out;
-}
-
-function hasLoadColumn(headers: readonly string[]): boolean {
-  return headers.some((h) => ["d", "l", "lr", "s", "r"].includes(bare(h)));
 }

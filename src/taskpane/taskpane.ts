@@ -1,24 +1,24 @@
-/* Task pane entry. The functions bundle is loaded on the same page (shared runtime). */
-const CAUTION =
-  "Results need review by a qualified engineer; local codes govern.";
+/*
+ * Task pane entry of the Excel bundle (dist/taskpane.js). The functions bundle is loaded on the
+ * same page (shared runtime). This bundle talks to the workbook only through the Office.js
+ * adapter and must never include HyperFormula (design.md section 6).
+ */
+import { OfficeWorkbookPort } from "../workbook/office";
+import { buildTakedown } from "../workbook/takedown-build";
+import { mountPane, showStartupError } from "./mount";
 
-function render(connected: boolean): void {
+function start(connected: boolean): void {
   const root = document.getElementById("root");
   if (!root) return;
-  root.textContent = "";
-  const h = document.createElement("h1");
-  h.textContent = "Loadpath";
-  const p = document.createElement("p");
-  p.textContent = connected
-    ? "LOADPATH worksheet functions are ready in this workbook."
-    : "Not connected to Excel.";
-  const c = document.createElement("p");
-  c.textContent = CAUTION;
-  root.append(h, p, c);
+  if (!connected) {
+    showStartupError(root, "Not connected to Excel. Open this pane from Excel, or try the demo page (pane-demo.html) in a browser.");
+    return;
+  }
+  mountPane(root, { port: new OfficeWorkbookPort(), build: buildTakedown, connected: true });
 }
 
 if (typeof Office !== "undefined" && typeof Office.onReady === "function") {
-  void Office.onReady((info) => render(info.host === Office.HostType.Excel));
+  void Office.onReady((info) => start(info.host === Office.HostType.Excel));
 } else {
-  render(false);
+  start(false);
 }

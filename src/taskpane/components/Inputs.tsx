@@ -86,7 +86,8 @@ export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
   };
   if (chosen.length === 0) return <Text className={styles.note}>Pick the tables first.</Text>;
   return (
-    <Accordion multiple collapsible defaultOpenItems={openByDefault}>
+    // Keyed by the chosen tables: a newly chosen table opens with its unmatched columns showing.
+    <Accordion key={chosen.map((r) => props.choice[r]).join("|")} multiple collapsible defaultOpenItems={openByDefault}>
       {chosen.map((role) => {
         const table = props.tables.find((x) => x.name === props.choice[role]);
         if (!table) return null;

@@ -1,0 +1,46 @@
+/*
+ * The demo page (dist/pane-demo.html): the task pane outside Excel, over the in-memory
+ * workbook (HyperFormula with the built LOADPATH functions) holding a sample building. It says
+ * it is not connected to Excel; settings live in the browser's localStorage; the cell a problem
+ * selects is shown under the notice, since there is no grid to select it in.
+ * `?sample=mistakes` loads the same building with an unknown support and a cycle.
+ */
+import { mountPane, showStartupError } from "../taskpane/mount";
+import type { WorkbookPort } from "../workbook/port";
+import { buildTakedown } from "../workbook/takedown-build";
+import { withStoredSettings } from "./local-settings";
+import { registerFunctionsInPage } from "./register";
+import { loadSample, openSample, SAMPLE_FILE, withMistakes } from "./sample";
+
+/** Record the cell each selection goes to, and show it on the page. */
+function showingSelection(port: WorkbookPort, out: HTMLElement): WorkbookPort {
+  return {
+    ...port,
+    select: async (sheet, address) => {
+      await port.select(sheet, address);
+      out.textContent = `Cell selected in the sample workbook: ${sheet}!${address}`;
+      out.dataset.cell = `${sheet}!${address}`;
+    },
+  };
+}
+
+async function start(): Promise<void> {
+  const root = document.getElementById("root");
+  if (!root) return;
+  const selected = document.createElement("p");
+  selected.className = "demo-note";
+  selected.setAttribute("aria-live", "polite");
+  selected.dataset.testid = "demo-selected";
+  try {
+    const variant = new URLSearchParams(location.search).get("sample") === "mistakes" ? "mistakes" : "building";
+    const [bundle, sample] = await Promise.all([registerFunctionsInPage(), loadSample(`samples/${SAMPLE_FILE}`)]);
+    const port = openSample(variant === "mistakes" ? withMistakes(sample) : sample, bundle);
+    const stored = withStoredSettings(port, window.localStorage, `loadpath-demo:${variant}:`);
+    root.before(selected);
+    mountPane(root, { port: showingSelection(stored, selected), build: buildTakedown, connected: false });
+  } catch (e) {
+    showStartupError(root, `The demo could not start: ${e instanceof Error ? e.message : String(e)}`);
+  }
+}
+
+void start();
