@@ -181,7 +181,7 @@ class LoadpathPlugin extends FunctionPlugin {
         const result = fn(...hostArgs);
         return (matrixResult ? this.spillResult(fm, result, ast, state) : this.scalarResult(fm, result)) as never;
       } catch (e) {
-        return new CellError(ErrorType.VALUE, `${fullId} failed: ${e instanceof Error ? e.message : String(e)}`) as never;
+        return new CellError(ErrorType.VALUE, `${fullId} failed: ${messageOf(e)}`) as never;
       }
     }) as never;
   }
@@ -208,6 +208,11 @@ class LoadpathPlugin extends FunctionPlugin {
     }
     return SimpleRangeValue.onlyValues(fitted.map((r) => r.map((c) => fromHostCell(c))) as never);
   }
+}
+
+/** The message of anything thrown (an Error from the bundle's own realm is not `instanceof Error` here). */
+function messageOf(e: unknown): string {
+  return typeof e === "object" && e !== null && typeof (e as { message?: unknown }).message === "string" ? (e as { message: string }).message : String(e);
 }
 
 /** Drop trailing rows and columns whose cells are all "" or blank (padding). */
