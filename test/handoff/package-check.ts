@@ -33,8 +33,10 @@ const NS_REL = "http://schemas.openxmlformats.org/officeDocument/2006/relationsh
 function parseXml(text: string, part: string, problems: string[]): Document {
   const errors: string[] = [];
   const doc = new DOMParser({
-    onError: (level: string, msg: string) => {
-      if (level !== "warning") errors.push(msg);
+    errorHandler: {
+      warning: () => undefined,
+      error: (msg: string) => void errors.push(msg),
+      fatalError: (msg: string) => void errors.push(msg),
     },
   }).parseFromString(text, "text/xml") as unknown as Document;
   for (const e of errors) problems.push(`${part}: malformed XML (${e})`);
