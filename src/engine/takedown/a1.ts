@@ -1,0 +1,34 @@
+/** A1-style addresses for the takedown engine (0-based rows and columns in, Excel text out). */
+import type { CellRef } from "./types";
+
+/** 0 -> "A", 25 -> "Z", 26 -> "AA". */
+export function columnLetter(col: number): string {
+  let n = col + 1;
+  let s = "";
+  while (n > 0) {
+    const r = (n - 1) % 26;
+    s = String.fromCharCode(65 + r) + s;
+    n = Math.floor((n - 1) / 26);
+  }
+  return s;
+}
+
+/** (0, 0) -> "A1". */
+export function a1(row: number, col: number): string {
+  return `${columnLetter(col)}${row + 1}`;
+}
+
+/** (0, 0) -> "$A$1". */
+export function a1Absolute(row: number, col: number): string {
+  return `$${columnLetter(col)}$${row + 1}`;
+}
+
+/** A sheet name as a formula writes it: quoted when it is not a plain identifier (My Sheet -> 'My Sheet'). */
+export function quoteSheet(sheet: string): string {
+  return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(sheet) && !/^[A-Za-z]{1,3}[0-9]+$/.test(sheet) ? sheet : `'${sheet.replace(/'/g, "''")}'`;
+}
+
+/** An absolute reference to an input cell from another sheet: Members!$D$7. */
+export function sheetCellRef(ref: CellRef): string {
+  return `${quoteSheet(ref.sheet)}!${a1Absolute(ref.row, ref.col)}`;
+}

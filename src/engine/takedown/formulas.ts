@@ -1,0 +1,73 @@
+/**
+ * The formula-writing part of the sheet plan, separate from the layout: the plan decides where
+ * every load, reaction and column total sits and hands the references to a writer, which spells
+ * the member-level computations. The add-in writer uses the LOADPATH worksheet functions; a
+ * hand-off writer (classic spreadsheet functions only) can implement the same interface from the
+ * same references.
+ */
+import type { UnitSystem } from "./types";
+
+/** References to one flexural member's geometry, for its formulas. */
+export interface MemberRefs {
+  /** Cell holding the member's length (ft or m), e.g. "$D12". */
+  readonly span: string;
+  /** One-column range of the two support positions, or null for pins at 0 and the length. */
+  readonly supports: string | null;
+}
+
+/**
+ * One load case's loads on one member. Every range covers the member's load rows; rows without a
+ * load of this case are blank in `magnitude`.
+ */
+export interface ChannelRefs {
+  /**
+   * The loads argument of the LOADPATH beam functions: a 4-column range `kind | magnitude | from |
+   * to` (from and to blank = full length), or a single magnitude cell when the member carries one
+   * uniform load over its whole length.
+   */
+  readonly loads: string;
+  /** Range of magnitudes (kip/ft or kip; kN/m or kN). */
+  readonly magnitude: string;
+  /** Range of load kinds: "line" (applied), "point" (applied) or "reaction" (a point load from a carried member). */
+  readonly kind: string;
+  /** Range of start positions (blank = 0). */
+  readonly from: string;
+  /** Range of loaded lengths of line loads (end = from + loaded length). */
+  readonly loaded: string;
+}
+
+/** Spells the member-level computations of the takedown sheet (formula text without "="). */
+export interface FormulaWriter {
+  /** Name shown in the generated sheet's header. */
+  readonly name: string;
+  /** Whether the plan writes each case's `kind | magnitude | from | to` columns beside the magnitudes. */
+  readonly writesLoadRanges: boolean;
+  /** Vertical reaction (up +) at the member's first (1) or second (2) support. */
+  reaction(member: MemberRefs, loads: ChannelRefs, index: 1 | 2): string;
+  /** Largest absolute shear. */
+  shearMax(member: MemberRefs, loads: ChannelRefs): string;
+  /** Largest sagging moment. */
+  momentMax(member: MemberRefs, loads: ChannelRefs): string;
+  /** K_LL of an element of ASCE/SEI 7-22 Table 4.7-2 by its key ("interior column"). */
+  kllDefault(element: string): string;
+  /** Live load reduction factor L/Lo (ASCE/SEI 7-22 Sec. 4.7) from K_LL, A_T and floors supported. */
+  llrFactor(kll: string, areaT: string, floors: string, units: UnitSystem): string;
+  /** Governing LRFD factored value of the load effects (ASCE/SEI 7-22 Sec. 2.3.1). */
+  combine(dead: string, live: string, roofLive: string, snow: string, rain: string): string;
+}
+
+function withSupports(member: MemberRefs): string {
+  return member.supports === null ? "" : `,${member.supports}`;
+}
+
+/** The add-in writer: the LOADPATH worksheet functions over the loads ranges. */
+export const ADD_IN_WRITER: FormulaWriter = {
+  name: "LOADPATH worksheet functions",
+  writesLoadRanges: true,
+  reaction: (m, c, index) => `LOADPATH.REACTION(${m.span},${c.loads},${index}${withSupports(m)})`,
+  shearMax: (m, c) => `LOADPATH.SHEAR_MAX(${m.span},${c.loads}${withSupports(m)})`,
+  momentMax: (m, c) => `LOADPATH.MOMENT_MAX(${m.span},${c.loads}${withSupports(m)})`,
+  kllDefault: (element) => `LOADPATH.KLL("${element}")`,
+  llrFactor: (kll, at, floors, units) => `LOADPATH.LL_REDUCE(1,${kll},${at},${floors},"${units}")`,
+  combine: (d, l, lr, s, r) => `LOADPATH.COMBINE(${d},${l},${lr},${s},${r})`,
+};

@@ -1,0 +1,121 @@
+/**
+ * Columns of the generated takedown sheet. Loads are carried through the takedown in channels:
+ * one per load case present, plus "L red." (the part of L on reducible zones) when some live load
+ * is not reducible, and "A_T" (1 per unit area on reducible zones: its reaction is the
+ * tributary area for live load reduction, design.md section 4).
+ */
+import { RESULT_UNITS } from "./units";
+import type { LoadCase, UnitSystem } from "./types";
+
+/** A quantity carried down the load path. */
+export type ChannelKey = LoadCase | "Lred" | "AT";
+
+/** One carried quantity and how it is shown. */
+export interface Channel {
+  readonly key: ChannelKey;
+  /** Short label in headers ("D", "L red.", "A_T"). */
+  readonly label: string;
+  /** True for the load cases (shears, moments and the balance are given for them). */
+  readonly isCase: boolean;
+  /** Unit of the magnitudes (line/force) and of the reactions. */
+  readonly lineUnit: string;
+  readonly forceUnit: string;
+}
+
+/** Fixed columns on the left of the member rows. */
+export const COL = {
+  mark: 0,
+  type: 1,
+  level: 2,
+  length: 3,
+  supports: 4,
+  kind: 5,
+  source: 6,
+  width: 7,
+  from: 8,
+  to: 9,
+  loaded: 10,
+} as const;
+
+/** Columns of one channel's loads block: kind | magnitude | from | to. */
+export const BLOCK_WIDTH = 4;
+
+/** Every column position of the sheet for a set of channels. */
+export interface Layout {
+  readonly units: UnitSystem;
+  readonly channels: readonly Channel[];
+  /** Channels that are load cases. */
+  readonly cases: readonly Channel[];
+  /** First column of each channel's loads block (kind); magnitude is +1, from +2, to +3. */
+  readonly block: readonly number[];
+  /** Reaction at the first and second support, per channel. */
+  readonly r1: readonly number[];
+  readonly r2: readonly number[];
+  /** Largest shear and moment per load case (index into `cases`). */
+  readonly vMax: readonly number[];
+  readonly mMax: readonly number[];
+  /** Loads arriving at a column or support, and its running total, per channel. */
+  readonly arriving: readonly number[];
+  readonly total: readonly number[];
+  readonly areaT: number;
+  readonly kll: number;
+  readonly floors: number;
+  readonly kllAt: number;
+  readonly llr: number;
+  readonly reducedLive: number;
+  readonly factored: number;
+  /** Number of columns. */
+  readonly width: number;
+}
+
+/**
+ * The channels of a takedown.
+ * @param cases - load cases present
+ * @param splitLive - carry reducible live load separately (some live load is not reducible)
+ * @param units - unit system (for the unit labels)
+ */
+export function channelsOf(cases: readonly LoadCase[], splitLive: boolean, units: UnitSystem): Channel[] {
+  const u = RESULT_UNITS[units];
+  const out: Channel[] = cases.map((c) => ({ key: c, label: c, isCase: true, lineUnit: u.line, forceUnit: u.force }));
+  if (cases.includes("L")) {
+    if (splitLive) out.push({ key: "Lred", label: "L red.", isCase: false, lineUnit: u.line, forceUnit: u.force });
+    out.push({ key: "AT", label: "A_T", isCase: false, lineUnit: u.length, forceUnit: u.area });
+  }
+  return out;
+}
+
+/**
+ * Column positions for the channels.
+ * @param channels - from {@link channelsOf}
+ * @param units - unit system
+ */
+export function layoutOf(channels: readonly Channel[], units: UnitSystem): Layout {
+  let next = COL.loaded + 1;
+  const take = (n: number): number[] => Array.from({ length: n }, () => next++);
+  const block = channels.map(() => {
+    const first = next;
+    next += BLOCK_WIDTH;
+    return first;
+  });
+  const cases = channels.filter((c) => c.isCase);
+  const r1: number[] = [];
+  const r2: number[] = [];
+  for (let i = 0; i < channels.length; i++) {
+    r1.push(next++);
+    r2.push(next++);
+  }
+  const vMax: number[] = [];
+  const mMax: number[] = [];
+  for (let i = 0; i < cases.length; i++) {
+    vMax.push(next++);
+    mMax.push(next++);
+  }
+  const arriving: number[] = [];
+  const total: number[] = [];
+  for (let i = 0; i < channels.length; i++) {
+    arriving.push(next++);
+    total.push(next++);
+  }
+  const [areaT, kll, floors, kllAt, llr, reducedLive, factored] = take(7) as [number, number, number, number, number, number, number];
+  return { units, channels, cases, block, r1, r2, vMax, mMax, arriving, total, areaT, kll, floors, kllAt, llr, reducedLive, factored, width: next };
+}

@@ -1,0 +1,542 @@
+/**
+ * The sheet plan: every cell of the generated takedown sheet, values and formulas, in takedown
+ * order. Each member gets a block of rows: one row per load it carries (its zone load over the
+ * trib width with any extra line loads, its Loads-table rows, and the reactions of the members
+ * it carries, referenced from their cells), and on its first row its results. Columns
+ * accumulate level by level; foundations and walls close the path; a load balance per case
+ * compares all applied load with all foundation and wall reactions. Nothing is copied as a value:
+ * inputs are referenced from the user's tables, so editing them recalculates the sheet.
+ *
+ * The layout (which rows and columns) lives here; the spelling of member computations is the
+ * {@link FormulaWriter}'s.
+ */
+import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
+import { ADD_IN_WRITER, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
+import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
+import { isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
+import { RESULT_UNITS } from "./units";
+import type { CellRef, CellValue, LoadCase } from "./types";
+import type { Delivery, PlacedLoad } from "./validate";
+
+/** A cell of the plan: a value, or a formula (text without "="). */
+export type PlanCell = CellValue | { readonly formula: string };
+
+/** Where a member's block sits and what it holds. */
+export interface MemberPlace {
+  readonly member: number;
+  /** 0-based sheet row of the block's first row (the row with the member's results). */
+  readonly row: number;
+  readonly rows: number;
+  /** Indices into the layout's channels that carry load on this member. */
+  readonly live: readonly number[];
+}
+
+/** The generated sheet, cell by cell, and where the results are. */
+export interface SheetPlan {
+  readonly sheet: string;
+  /** Rows of cells from A1 (undefined or null = blank). */
+  readonly cells: readonly (readonly (PlanCell | undefined)[])[];
+  readonly layout: Layout;
+  /** Members in takedown order with their blocks. */
+  readonly places: readonly MemberPlace[];
+  /** Rows of the load balance, and the column of each load case in it. */
+  readonly balance: { readonly appliedRow: number; readonly supportsRow: number; readonly caseCols: readonly number[] };
+  /** 0-based row of the column header line (members start on the next row). */
+  readonly headerRow: number;
+}
+
+/** What the plan is made from. */
+export interface PlanInput {
+  readonly model: TakedownModel;
+  /** Member indices in takedown order. */
+  readonly order: readonly number[];
+  readonly deliveries: readonly Delivery[];
+  readonly placedLoads: readonly PlacedLoad[];
+  /** Name of the generated sheet. */
+  readonly sheet: string;
+  /** First line of the sheet (the generated-sheet marker and a title). */
+  readonly title: string;
+  readonly writer?: FormulaWriter;
+}
+
+/** Caution carried by every generated sheet (design.md section 6). */
+export const CAUTION =
+  "Caution: a calculation aid. Every result needs review by a qualified engineer, who remains responsible for the design; code provisions apply where the local jurisdiction adopts them, and local codes govern.";
+
+/** K_LL keys of ASCE/SEI 7-22 Table 4.7-2 used when the KLL cell is blank (common practice: interior values). */
+const DEFAULT_ELEMENT = { column: "interior column", flexural: "interior beam" } as const;
+
+/** A formula cell. */
+function f(formula: string): PlanCell {
+  return { formula };
+}
+
+/** Sparse rows of cells. */
+class Grid {
+  readonly rows: (PlanCell | undefined)[][] = [];
+  set(row: number, col: number, value: PlanCell): void {
+    let r = this.rows[row];
+    if (r === undefined) {
+      for (let i = this.rows.length; i <= row; i++) this.rows.push([]);
+      r = this.rows[row]!;
+    }
+    r[col] = value;
+  }
+}
+
+/** Relative reference with an absolute column: "$D12". */
+function colAbs(row: number, col: number): string {
+  return `$${columnLetter(col)}${row + 1}`;
+}
+
+/** One load row of a member block before it is written. */
+interface LoadRow {
+  readonly kind: "line" | "point" | "reaction";
+  readonly source: string;
+  readonly width?: PlanCell;
+  /** Start position (null = full length for a line, 0 for axial members). */
+  readonly from: PlanCell | null;
+  readonly to: PlanCell | null;
+  /** Magnitude formula per channel index (absent = none of that channel). */
+  readonly mags: ReadonlyMap<number, string>;
+}
+
+/** Everything the block writers share. */
+interface Context {
+  readonly model: TakedownModel;
+  readonly layout: Layout;
+  readonly writer: FormulaWriter;
+  readonly grid: Grid;
+  readonly splitLive: boolean;
+  readonly channelIndex: ReadonlyMap<string, number>;
+  readonly places: Map<number, MemberPlace>;
+  /** Deliveries into each member, in takedown order of the carried member. */
+  readonly into: ReadonlyMap<number, readonly Delivery[]>;
+  readonly loadsOn: ReadonlyMap<number, readonly PlacedLoad[]>;
+}
+
+/** Unit conversion of a pound-based input to kips, visible in the formula (US); none in SI. */
+function toKips(ctx: Context, term: string, compound: boolean): string {
+  if (ctx.model.units === "SI") return term;
+  return compound ? `(${term})/1000` : `${term}/1000`;
+}
+
+/** Channel index of a key, if carried. */
+function ch(ctx: Context, key: string): number | undefined {
+  return ctx.channelIndex.get(key);
+}
+
+/**
+ * Magnitudes of an area load of `zone` over the width in column H of `row`, plus extra line loads:
+ * psf x ft (+ plf), /1000 -> kip/ft in US; kPa x m (+ kN/m) = kN/m in SI.
+ */
+function areaMags(ctx: Context, zone: Zone | null, row: number, extra: Readonly<Partial<Record<LoadCase, CellRef>>>): Map<number, string> {
+  const mags = new Map<number, string>();
+  const width = colAbs(row, COL.width);
+  for (const c of ctx.model.cases) {
+    const zoneCell = zone?.loadCells[c];
+    const extraCell = extra[c];
+    const terms = [...(zoneCell ? [`${sheetCellRef(zoneCell)}*${width}`] : []), ...(extraCell ? [sheetCellRef(extraCell)] : [])];
+    if (terms.length > 0) mags.set(ch(ctx, c)!, toKips(ctx, terms.join("+"), terms.length > 1));
+  }
+  const liveCell = zone?.loadCells.L;
+  if (zone?.reducible && liveCell) {
+    const lred = ch(ctx, "Lred");
+    if (lred !== undefined) mags.set(lred, toKips(ctx, `${sheetCellRef(liveCell)}*${width}`, false));
+    const at = ch(ctx, "AT");
+    if (at !== undefined) mags.set(at, width);
+  }
+  return mags;
+}
+
+/** The zone-and-extras row of a flexural member (null when it carries neither). */
+function zoneRow(ctx: Context, m: Member, row: number): LoadRow | null {
+  const extras = Object.keys(m.extra) as LoadCase[];
+  const zone = m.zone;
+  if (zone === null && extras.length === 0) return null;
+  const mags = areaMags(ctx, zone, row, m.extra);
+  if (mags.size === 0) return null;
+  const parts = [...(zone ? [`zone ${zone.name} × trib`] : []), ...extras.map((c) => `w${c}`)];
+  const width = zone && m.trib ? f(sheetCellRef(m.trib.cell)) : undefined;
+  return { kind: "line", source: parts.join(" + "), ...(width ? { width } : {}), from: null, to: null, mags };
+}
+
+/** A Loads-table row on a member. */
+function extraLoadRow(ctx: Context, p: PlacedLoad, row: number, axial: boolean): LoadRow {
+  const l = p.load;
+  const ref = (n: { cell: CellRef } | null): PlanCell | null => (n === null ? null : f(sheetCellRef(n.cell)));
+  const label = `Loads row ${l.sheetRow}`;
+  if (l.kind === "area") {
+    const partial = l.from?.value != null && l.to?.value != null;
+    return {
+      kind: "line",
+      source: `${label}: zone ${l.zone!.name} × width`,
+      width: ref(l.width),
+      from: partial ? ref(l.from) : null,
+      to: partial ? ref(l.to) : null,
+      mags: areaMags(ctx, l.zone, row, {}),
+    };
+  }
+  const c = l.loadCase!;
+  const mag = new Map([[ch(ctx, c)!, toKips(ctx, sheetCellRef(l.magnitude!.cell), false)]]);
+  if (l.kind === "point") return { kind: "point", source: `${label}: point ${c}`, from: axial ? null : ref(l.from), to: null, mags: mag };
+  const partial = l.from?.value != null && l.to?.value != null;
+  return { kind: "line", source: `${label}: line ${c}`, from: partial ? ref(l.from) : null, to: partial ? ref(l.to) : null, mags: mag };
+}
+
+/** Cell (absolute, on the generated sheet) holding what a delivery hands over in channel i. */
+function deliveredCell(ctx: Context, d: Delivery, i: number): string | null {
+  const place = ctx.places.get(d.from)!;
+  if (!place.live.includes(i)) return null;
+  const from = ctx.model.members[d.from]!;
+  const col = isFlexural(from.type) ? (d.end === "end" ? ctx.layout.r2[i]! : ctx.layout.r1[i]!) : ctx.layout.total[i]!;
+  return a1Absolute(place.row, col);
+}
+
+/** A received reaction as a load row. */
+function receivedRow(ctx: Context, d: Delivery, axial: boolean): LoadRow {
+  const mags = new Map<number, string>();
+  for (let i = 0; i < ctx.layout.channels.length; i++) {
+    const cell = deliveredCell(ctx, d, i);
+    if (cell !== null) mags.set(i, cell);
+  }
+  const from = ctx.model.members[d.from]!;
+  return { kind: "reaction", source: `${from.mark} ${d.end}`, from: axial || d.at === null ? null : f(sheetCellRef(d.at.cell)), to: null, mags };
+}
+
+/** The member's identity cells (mark, type, level). */
+function writeIdentity(ctx: Context, m: Member, row: number): void {
+  ctx.grid.set(row, COL.mark, m.mark);
+  ctx.grid.set(row, COL.type, m.type);
+  if (m.level !== "") ctx.grid.set(row, COL.level, m.level);
+}
+
+/** Write the load rows; returns the channels that carry load. */
+function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, first: number, uniform: boolean, axial: boolean): number[] {
+  const { grid, layout } = ctx;
+  const live = new Set<number>();
+  rows.forEach((lr, k) => {
+    const r = top + k;
+    grid.set(r, COL.kind, lr.kind);
+    grid.set(r, COL.source, lr.source);
+    if (lr.width !== undefined) grid.set(r, COL.width, lr.width);
+    if (lr.from !== null) grid.set(r, COL.from, lr.from);
+    if (lr.to !== null) grid.set(r, COL.to, lr.to);
+    if (lr.kind === "line") grid.set(r, COL.loaded, f(lr.to !== null ? `${a1(r, COL.to)}-${a1(r, COL.from)}` : colAbs(first, COL.length)));
+    for (const [i, mag] of lr.mags) {
+      live.add(i);
+      const b = layout.block[i]!;
+      grid.set(r, b + 1, f(mag));
+      if (axial || uniform || !ctx.writer.writesLoadRanges) continue;
+      grid.set(r, b, lr.kind === "line" ? "line" : "point");
+      if (lr.from !== null) grid.set(r, b + 2, f(colAbs(r, COL.from)));
+      if (lr.to !== null) grid.set(r, b + 3, f(colAbs(r, COL.to)));
+    }
+  });
+  return [...live].sort((a, b) => a - b);
+}
+
+/** References of channel i's loads over rows top..top+n-1. */
+function channelRefs(ctx: Context, i: number, top: number, n: number, uniform: boolean): ChannelRefs {
+  const b = ctx.layout.block[i]!;
+  const range = (c0: number, c1: number): string => `${a1(top, c0)}:${a1(top + n - 1, c1)}`;
+  return {
+    loads: uniform ? a1(top, b + 1) : range(b, b + 3),
+    magnitude: range(b + 1, b + 1),
+    kind: range(COL.kind, COL.kind),
+    from: range(COL.from, COL.from),
+    loaded: range(COL.loaded, COL.loaded),
+  };
+}
+
+/** The KLL cell formula: the Members KLL cell when filled, else the Table 4.7-2 default. */
+function kllFormula(ctx: Context, m: Member, element: string): string {
+  const fallback = ctx.writer.kllDefault(element);
+  if (m.kll === null) return fallback;
+  const cell = sheetCellRef(m.kll.cell);
+  return `IF(${cell}="",${fallback},${cell})`;
+}
+
+/** Length and supports cells of a flexural member; returns the member refs for its formulas. */
+function writeGeometry(ctx: Context, m: Member, row: number): MemberRefs {
+  const span = sheetCellRef(m.span!.cell);
+  const so = m.startOverhang ? sheetCellRef(m.startOverhang.cell) : null;
+  const eo = m.endOverhang ? sheetCellRef(m.endOverhang.cell) : null;
+  if (so === null && eo === null) {
+    ctx.grid.set(row, COL.length, f(span));
+    return { span: colAbs(row, COL.length), supports: null };
+  }
+  ctx.grid.set(row, COL.length, f([so, span, eo].filter((x) => x !== null).join("+")));
+  ctx.grid.set(row, COL.supports, so === null ? 0 : f(so));
+  ctx.grid.set(row + 1, COL.supports, f(so === null ? span : `${so}+${span}`));
+  return { span: colAbs(row, COL.length), supports: `${colAbs(row, COL.supports)}:${colAbs(row + 1, COL.supports)}` };
+}
+
+/** A beam, girder or joist: loads, reactions, shear and moment maxima, A_T and live load reduction. */
+function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
+  const { grid, layout, writer } = ctx;
+  writeIdentity(ctx, m, row);
+  const rows: LoadRow[] = [];
+  const zr = zoneRow(ctx, m, row);
+  if (zr) rows.push(zr);
+  for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, false));
+  for (const d of ctx.into.get(m.index) ?? []) rows.push(receivedRow(ctx, d, false));
+  const overhangs = m.startOverhang !== null || m.endOverhang !== null;
+  const n = Math.max(1, rows.length, overhangs ? 2 : 1);
+  const member = writeGeometry(ctx, m, row);
+  const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null;
+  const live = writeLoadRows(ctx, rows, row, row, uniform, false);
+  for (const i of live) {
+    const refs = channelRefs(ctx, i, row, n, uniform);
+    grid.set(row, layout.r1[i]!, f(writer.reaction(member, refs, 1)));
+    grid.set(row, layout.r2[i]!, f(writer.reaction(member, refs, 2)));
+    const c = layout.cases.indexOf(layout.channels[i]!);
+    if (c >= 0) {
+      grid.set(row, layout.vMax[c]!, f(writer.shearMax(member, refs)));
+      grid.set(row, layout.mMax[c]!, f(writer.momentMax(member, refs)));
+    }
+  }
+  const at = ch(ctx, "AT");
+  if (at !== undefined) {
+    grid.set(row, layout.areaT, live.includes(at) ? f(`${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)}`) : 0);
+    grid.set(row, layout.kll, f(kllFormula(ctx, m, DEFAULT_ELEMENT.flexural)));
+    grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
+  }
+  return { member: m.index, row, rows: n, live };
+}
+
+/** Sum of cells as formula text ("0" when none). */
+function sumOf(cells: readonly string[]): string {
+  return cells.length === 0 ? "0" : cells.join("+");
+}
+
+/** Self weight of a column over its height: wX (plf or kN/m) x height, as a point load row. */
+function selfWeightRow(ctx: Context, m: Member, row: number): LoadRow | null {
+  const cases = Object.keys(m.extra) as LoadCase[];
+  if (cases.length === 0 || m.span === null || m.span.value === null || m.span.value <= 0) return null;
+  const mags = new Map<number, string>();
+  for (const c of cases) mags.set(ch(ctx, c)!, toKips(ctx, `${sheetCellRef(m.extra[c]!)}*${colAbs(row, COL.length)}`, false));
+  return { kind: "point", source: `self weight: ${cases.map((c) => `w${c}`).join(", ")} × height`, from: null, to: null, mags };
+}
+
+/** A column: loads arriving at its level, running totals, A_T, floors, live load reduction, factored load. */
+function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
+  const { grid, layout, writer } = ctx;
+  writeIdentity(ctx, m, row);
+  if (m.span !== null && m.span.value !== null) grid.set(row, COL.length, f(sheetCellRef(m.span.cell)));
+  const into = ctx.into.get(m.index) ?? [];
+  const above = into.filter((d) => ctx.model.members[d.from]!.type === "column");
+  const rows: LoadRow[] = into.filter((d) => !above.includes(d)).map((d) => receivedRow(ctx, d, true));
+  for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
+  const sw = selfWeightRow(ctx, m, row);
+  if (sw) rows.push(sw);
+  const n = Math.max(1, rows.length);
+  const liveRows = writeLoadRows(ctx, rows, row, row, false, true);
+  const live: number[] = [];
+  for (let i = 0; i < layout.channels.length; i++) {
+    const fromAbove = above.map((d) => deliveredCell(ctx, d, i)).filter((c): c is string => c !== null);
+    const here = liveRows.includes(i);
+    if (!here && fromAbove.length === 0) continue;
+    live.push(i);
+    const b = layout.block[i]! + 1;
+    grid.set(row, layout.arriving[i]!, here ? f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`) : 0);
+    grid.set(row, layout.total[i]!, f(sumOf([a1(row, layout.arriving[i]!), ...fromAbove])));
+  }
+  const totalOf = (key: string): string => {
+    const i = ch(ctx, key);
+    return i !== undefined && live.includes(i) ? a1(row, layout.total[i]!) : "0";
+  };
+  const at = ch(ctx, "AT");
+  if (at !== undefined) {
+    const aboveFloors = above.map((d) => a1Absolute(ctx.places.get(d.from)!.row, layout.floors));
+    const here = live.includes(at) ? `IF(${a1(row, layout.arriving[at]!)}>0,1,0)` : "0";
+    const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
+    grid.set(row, layout.areaT, f(totalOf("AT")));
+    grid.set(row, layout.floors, f(here + floorsAbove));
+    grid.set(row, layout.kll, f(kllFormula(ctx, m, DEFAULT_ELEMENT.column)));
+    grid.set(row, layout.kllAt, f(`${a1(row, layout.kll)}*${a1(row, layout.areaT)}`));
+    grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)));
+    const llr = a1(row, layout.llr);
+    const live_ = totalOf("L");
+    const lred = totalOf("Lred");
+    grid.set(row, layout.reducedLive, f(ctx.splitLive ? `${live_}-${lred}+${llr}*${lred}` : `${llr}*${live_}`));
+  }
+  const reduced = at !== undefined ? a1(row, layout.reducedLive) : totalOf("L");
+  grid.set(row, layout.factored, f(writer.combine(totalOf("D"), reduced, totalOf("Lr"), totalOf("S"), totalOf("R"))));
+  return { member: m.index, row, rows: n, live };
+}
+
+/** A wall or foundation: what it receives, summed per channel (the reactions that close the path). */
+function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
+  const { grid, layout } = ctx;
+  writeIdentity(ctx, m, row);
+  const rows: LoadRow[] = (ctx.into.get(m.index) ?? []).map((d) => receivedRow(ctx, d, true));
+  for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
+  const n = Math.max(1, rows.length);
+  const live = writeLoadRows(ctx, rows, row, row, false, true);
+  for (const i of live) {
+    const b = layout.block[i]! + 1;
+    grid.set(row, layout.total[i]!, f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`));
+  }
+  return { member: m.index, row, rows: n, live };
+}
+
+/** Header lines: marker and title, caution, units, the balance, the column headers. */
+function writeHeader(ctx: Context, title: string): { appliedRow: number; supportsRow: number; caseCols: number[]; headerRow: number } {
+  const { grid, layout } = ctx;
+  const u = RESULT_UNITS[ctx.model.units];
+  grid.set(0, 0, title);
+  grid.set(1, 0, CAUTION);
+  const conv = ctx.model.units === "US" ? "inputs in ft, psf, plf and lb; psf × ft = plf and /1000 = kip/ft (lb/1000 = kip) in the formulas" : "inputs in m, kPa, kN/m and kN; kPa × m = kN/m";
+  grid.set(
+    2,
+    0,
+    `Units ${ctx.model.units}: lengths ${u.length}, line loads ${u.line}, forces ${u.force}, moments ${u.moment}, areas ${u.area} (${conv}). Gravity loads down +, reactions up +, sagging moment +. Positions are measured from each member's start end.`,
+  );
+  grid.set(3, 0, `Members in takedown order: each after every member it carries. Formulas by ${ctx.writer.name}. Rebuilt in place by the next takedown; edits here are lost.`);
+  const top = 5;
+  grid.set(top, 0, `Load balance (${u.force})`);
+  grid.set(top + 1, 0, "Applied");
+  grid.set(top + 2, 0, "Foundations and walls");
+  grid.set(top + 3, 0, "Difference");
+  const caseCols = layout.cases.map((_, k) => 1 + k);
+  layout.cases.forEach((c, k) => {
+    grid.set(top, caseCols[k]!, c.label);
+    grid.set(top + 3, caseCols[k]!, f(`${a1(top + 1, caseCols[k]!)}-${a1(top + 2, caseCols[k]!)}`));
+  });
+  const headerRow = top + 6;
+  writeColumnHeaders(ctx, headerRow);
+  return { appliedRow: top + 1, supportsRow: top + 2, caseCols, headerRow };
+}
+
+/** The two header lines above the member rows. */
+function writeColumnHeaders(ctx: Context, row: number): void {
+  const { grid, layout } = ctx;
+  const u = RESULT_UNITS[ctx.model.units];
+  const names: [number, string][] = [
+    [COL.mark, "Mark"],
+    [COL.type, "Type"],
+    [COL.level, "Level"],
+    [COL.length, `Length (${u.length})`],
+    [COL.supports, `Supports at (${u.length})`],
+    [COL.kind, "Load"],
+    [COL.source, "From"],
+    [COL.width, `Trib or width (${u.length})`],
+    [COL.from, `Start (${u.length})`],
+    [COL.to, `End (${u.length})`],
+    [COL.loaded, `Loaded length (${u.length})`],
+  ];
+  grid.set(row - 1, COL.mark, "Member");
+  grid.set(row - 1, COL.kind, "Loads on the member");
+  layout.channels.forEach((c: Channel, i) => {
+    const b = layout.block[i]!;
+    grid.set(row - 1, b, `${c.label} loads`);
+    names.push([b, "kind"], [b + 1, `w (${c.lineUnit}) or P (${c.forceUnit})`], [b + 2, `start (${u.length})`], [b + 3, `end (${u.length})`]);
+    names.push([layout.r1[i]!, `${c.label} R1 (${c.forceUnit})`], [layout.r2[i]!, `${c.label} R2 (${c.forceUnit})`]);
+    names.push([layout.arriving[i]!, `${c.label} arriving (${c.forceUnit})`], [layout.total[i]!, `${c.label} total (${c.forceUnit})`]);
+  });
+  layout.cases.forEach((c, k) => names.push([layout.vMax[k]!, `${c.label} V max (${u.force})`], [layout.mMax[k]!, `${c.label} M max (${u.moment})`]));
+  grid.set(row - 1, layout.r1[0] ?? 0, "Reactions at the first (R1) and second (R2) support");
+  if (layout.vMax.length > 0) grid.set(row - 1, layout.vMax[0]!, "Shear and moment maxima");
+  grid.set(row - 1, layout.arriving[0] ?? 0, "Columns: loads arriving at the level and totals; foundations and walls: totals");
+  grid.set(row - 1, layout.areaT, "Live load reduction (ASCE/SEI 7-22 Sec. 4.7) and factored load (Sec. 2.3.1)");
+  names.push(
+    [layout.areaT, `A_T (${u.area})`],
+    [layout.kll, "KLL"],
+    [layout.floors, "Floors"],
+    [layout.kllAt, `KLL·A_T (${u.area})`],
+    [layout.llr, "LLR factor"],
+    [layout.reducedLive, `L reduced (${u.force})`],
+    [layout.factored, `Factored LRFD (${u.force})`],
+  );
+  for (const [c, name] of names) grid.set(row, c, name);
+}
+
+/** The balance formulas, once every member row is known. */
+function writeBalance(ctx: Context, b: { appliedRow: number; supportsRow: number; caseCols: number[] }, first: number, last: number, terminals: readonly MemberPlace[]): void {
+  const { grid, layout } = ctx;
+  layout.cases.forEach((c, k) => {
+    const i = layout.channels.indexOf(c);
+    const mag = columnLetter(layout.block[i]! + 1);
+    const kind = columnLetter(COL.kind);
+    const loaded = columnLetter(COL.loaded);
+    const span = (col: string): string => `$${col}$${first + 1}:$${col}$${last + 1}`;
+    const magRange = `${mag}$${first + 1}:${mag}$${last + 1}`;
+    grid.set(b.appliedRow, b.caseCols[k]!, f(last < first ? "0" : `SUMPRODUCT(${span(loaded)},${magRange})+SUMIF(${span(kind)},"point",${magRange})`));
+    const t = columnLetter(layout.total[i]!);
+    const tFirst = terminals[0];
+    const tLast = terminals[terminals.length - 1];
+    grid.set(b.supportsRow, b.caseCols[k]!, f(tFirst && tLast ? `SUM(${t}$${tFirst.row + 1}:${t}$${tLast.row + tLast.rows})` : "0"));
+  });
+}
+
+/** Whether live load must be carried in two parts: some live load on the members is not reducible. */
+function needsSplitLive(model: TakedownModel, order: readonly number[], loads: readonly PlacedLoad[]): boolean {
+  if (!model.cases.includes("L")) return false;
+  const fixedLive = (z: Zone | null): boolean => z !== null && z.loadCells.L !== undefined && !z.reducible;
+  const onMembers = order.some((i) => {
+    const m = model.members[i]!;
+    return m.extra.L !== undefined || (isFlexural(m.type) && fixedLive(m.zone));
+  });
+  return onMembers || loads.some((p) => p.load.loadCase === "L" || (p.load.kind === "area" && fixedLive(p.load.zone)));
+}
+
+function groupBy<T>(items: readonly T[], key: (t: T) => number): Map<number, T[]> {
+  const out = new Map<number, T[]>();
+  for (const t of items) {
+    const k = key(t);
+    const list = out.get(k);
+    if (list) list.push(t);
+    else out.set(k, [t]);
+  }
+  return out;
+}
+
+/**
+ * Plan the generated sheet.
+ * @param input - model, order, checked deliveries and loads, sheet name and title
+ * @returns every cell of the sheet and where each member's results are
+ */
+export function planSheet(input: PlanInput): SheetPlan {
+  const { model, order } = input;
+  const position = new Map(order.map((m, i) => [m, i]));
+  const deliveries = input.deliveries.filter((d) => position.has(d.from) && position.has(d.to));
+  const into = groupBy([...deliveries].sort((a, b) => position.get(a.from)! - position.get(b.from)! || (a.end === "start" ? -1 : 1)), (d) => d.to);
+  const loadsOn = groupBy(
+    input.placedLoads.filter((p) => position.has(p.member)),
+    (p) => p.member,
+  );
+  const splitLive = needsSplitLive(model, order, input.placedLoads.filter((p) => position.has(p.member)));
+  const channels = channelsOf(model.cases, splitLive, model.units);
+  const layout = layoutOf(channels, model.units);
+  const ctx: Context = {
+    model,
+    layout,
+    writer: input.writer ?? ADD_IN_WRITER,
+    grid: new Grid(),
+    splitLive,
+    channelIndex: new Map(channels.map((c, i) => [c.key, i])),
+    places: new Map(),
+    into,
+    loadsOn,
+  };
+  const balance = writeHeader(ctx, input.title);
+  let row = balance.headerRow + 1;
+  const first = row;
+  const places: MemberPlace[] = [];
+  for (const index of order) {
+    const m = model.members[index]!;
+    const place = isFlexural(m.type) ? writeFlexural(ctx, m, row) : isTerminal(m.type) ? writeTerminal(ctx, m, row) : writeColumn(ctx, m, row);
+    ctx.places.set(index, place);
+    places.push(place);
+    row += place.rows;
+  }
+  writeBalance(
+    ctx,
+    balance,
+    first,
+    row - 1,
+    places.filter((p) => isTerminal(model.members[p.member]!.type)),
+  );
+  return { sheet: input.sheet, cells: ctx.grid.rows, layout, places, balance, headerRow: balance.headerRow };
+}

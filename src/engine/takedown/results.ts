@@ -1,0 +1,157 @@
+/**
+ * The results of a takedown read back from the computed sheet: the JSON of design.md section 5
+ * and the summary the pane shows. Values come from the sheet's cells (computed by the workbook's
+ * engine); the list of load combinations of each column is evaluated with the engine's ASCE/SEI
+ * 7-22 combinations from the column's computed totals, the same code LOADPATH.COMBINE runs.
+ */
+import { combinationValues } from "../loads/combinations";
+import { isFlexural, isTerminal, type TakedownModel } from "./model";
+import type { SheetPlan } from "./plan";
+import type { CellValue, LoadCase, Problem, UnitSystem } from "./types";
+
+/** One flexural member (or a column, with its base reaction) in the JSON. */
+export interface MemberResult {
+  readonly type: string;
+  readonly level: string;
+  /** Per case: [first support, second support] for beams; [base] for columns. */
+  readonly reactions: Readonly<Record<string, readonly number[]>>;
+  readonly shearMax: Readonly<Record<string, number>>;
+  readonly momentMax: Readonly<Record<string, number>>;
+  readonly tributaryArea: number;
+  readonly llrFactor: number;
+}
+
+/** One column (one level of a stack) in the JSON. */
+export interface ColumnResult {
+  readonly level: string;
+  readonly cumulative: Readonly<Record<string, number>>;
+  readonly tributaryArea: number;
+  readonly floors: number;
+  readonly kllAt: number;
+  readonly llrFactor: number;
+  readonly reducedLive: number;
+  readonly combos: Readonly<Record<string, number>>;
+}
+
+/** The JSON of design.md section 5. */
+export interface TakedownResults {
+  readonly units: UnitSystem;
+  readonly members: Readonly<Record<string, MemberResult>>;
+  readonly columns: Readonly<Record<string, ColumnResult>>;
+  readonly foundations: Readonly<Record<string, Readonly<Record<string, number>>>>;
+  readonly balance: Readonly<Record<string, { readonly applied: number; readonly supports: number }>>;
+  readonly problems: readonly Problem[];
+}
+
+/** What the pane shows after a build. */
+export interface Summary {
+  readonly membersByType: Readonly<Record<string, number>>;
+  readonly levels: readonly string[];
+  readonly appliedByCase: Readonly<Record<string, number>>;
+  readonly supportsByCase: Readonly<Record<string, number>>;
+}
+
+/** Reads a computed cell of the generated sheet (0-based row and column). */
+export type CellReader = (row: number, col: number) => CellValue | undefined;
+
+/** A computed cell as a number: blank is 0 (nothing delivered), text or an error is NaN (null in JSON). */
+function numberAt(read: CellReader, row: number, col: number | undefined): number {
+  if (col === undefined) return 0;
+  const v = read(row, col);
+  if (v === null || v === undefined || v === "") return 0;
+  return typeof v === "number" ? v : Number.NaN;
+}
+
+/** The gravity combinations (no wind or seismic term) of ASCE/SEI 7-22 Sec. 2.3.1, LRFD, by label. */
+export function gravityCombos(effects: Readonly<Partial<Record<LoadCase, number>>>): Record<string, number> {
+  const values = combinationValues({ D: effects.D ?? 0, L: effects.L ?? 0, Lr: effects.Lr ?? 0, S: effects.S ?? 0, R: effects.R ?? 0, W: 0, E: 0 }, { method: "LRFD", halfLive: false });
+  const out: Record<string, number> = {};
+  for (const v of values) if (v.terms.every((t) => t.load !== "W" && t.load !== "E")) out[v.label] = v.value;
+  return out;
+}
+
+/**
+ * Read the takedown's results from the computed sheet.
+ * @param plan - the sheet plan that was written
+ * @param model - the model it was planned from
+ * @param read - computed cell values of the generated sheet
+ * @param problems - problems to carry in the JSON
+ */
+export function readResults(plan: SheetPlan, model: TakedownModel, read: CellReader, problems: readonly Problem[]): TakedownResults {
+  const { layout } = plan;
+  const members: Record<string, MemberResult> = {};
+  const columns: Record<string, ColumnResult> = {};
+  const foundations: Record<string, Record<string, number>> = {};
+  const caseIndex = layout.cases.map((c) => ({ key: c.key, i: layout.channels.indexOf(c) }));
+  const hasAt = layout.channels.some((c) => c.key === "AT");
+  for (const place of plan.places) {
+    const m = model.members[place.member]!;
+    const row = place.row;
+    const at = (col: number): number => numberAt(read, row, col);
+    if (isTerminal(m.type)) {
+      foundations[m.mark] = Object.fromEntries(caseIndex.map(({ key, i }) => [key, at(layout.total[i]!)]));
+      continue;
+    }
+    const tributaryArea = hasAt ? at(layout.areaT) : 0;
+    const llrFactor = hasAt ? at(layout.llr) : 1;
+    if (isFlexural(m.type)) {
+      members[m.mark] = {
+        type: m.type,
+        level: m.level,
+        reactions: Object.fromEntries(caseIndex.map(({ key, i }) => [key, [at(layout.r1[i]!), at(layout.r2[i]!)]])),
+        shearMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.vMax[k]!)])),
+        momentMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.mMax[k]!)])),
+        tributaryArea,
+        llrFactor,
+      };
+      continue;
+    }
+    const cumulative: Record<string, number> = Object.fromEntries(caseIndex.map(({ key, i }) => [key, at(layout.total[i]!)]));
+    const reducedLive = hasAt ? at(layout.reducedLive) : (cumulative.L ?? 0);
+    members[m.mark] = {
+      type: m.type,
+      level: m.level,
+      reactions: Object.fromEntries(Object.entries(cumulative).map(([k, v]) => [k, [v]])),
+      shearMax: {},
+      momentMax: {},
+      tributaryArea,
+      llrFactor,
+    };
+    columns[m.mark] = {
+      level: m.level,
+      cumulative,
+      tributaryArea,
+      floors: hasAt ? at(layout.floors) : 0,
+      kllAt: hasAt ? at(layout.kllAt) : 0,
+      llrFactor,
+      reducedLive,
+      combos: gravityCombos({ ...cumulative, L: reducedLive }),
+    };
+  }
+  const balance = Object.fromEntries(
+    layout.cases.map((c, k) => [c.key, { applied: numberAt(read, plan.balance.appliedRow, plan.balance.caseCols[k]), supports: numberAt(read, plan.balance.supportsRow, plan.balance.caseCols[k]) }]),
+  );
+  return { units: model.units, members, columns, foundations, balance, problems };
+}
+
+/**
+ * The summary of a build: members by type, levels top-down, applied and supported load per case.
+ * @param results - from {@link readResults}
+ * @param plan - the sheet plan
+ * @param model - the model
+ * @param levels - levels from the top down
+ */
+export function summarize(results: TakedownResults, plan: SheetPlan, model: TakedownModel, levels: readonly string[]): Summary {
+  const membersByType: Record<string, number> = {};
+  for (const p of plan.places) {
+    const t = model.members[p.member]!.type;
+    membersByType[t] = (membersByType[t] ?? 0) + 1;
+  }
+  const appliedByCase: Record<string, number> = {};
+  const supportsByCase: Record<string, number> = {};
+  for (const [k, v] of Object.entries(results.balance)) {
+    appliedByCase[k] = v.applied;
+    supportsByCase[k] = v.supports;
+  }
+  return { membersByType, levels, appliedByCase, supportsByCase };
+}

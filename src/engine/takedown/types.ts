@@ -1,0 +1,60 @@
+/**
+ * Types shared by the takedown engine: the input tables as read, the problems found in them and
+ * the load cases carried. Shapes match the workbook port (src/workbook/port.ts) and the takedown
+ * contract (src/workbook/takedown-api.ts) structurally, so the engine needs no import from the
+ * layers above it.
+ */
+
+/** A cell's content as read: number, text, boolean, blank (null) or an error text like "#DIV/0!". */
+export type CellValue = number | string | boolean | null;
+
+/** A rectangular block read from a sheet: the header row first, 0-based position of its top-left cell. */
+export interface TableData {
+  readonly sheet: string;
+  readonly top: number;
+  readonly left: number;
+  readonly values: readonly (readonly CellValue[])[];
+}
+
+/** Unit system of a takedown: US (ft, psf, plf, lb in; kip, kip-ft out) or SI (m, kPa, kN/m, kN, kN·m). */
+export type UnitSystem = "US" | "SI";
+
+/** The gravity load cases a takedown carries, in the order they appear everywhere. */
+export type LoadCase = "D" | "L" | "Lr" | "S" | "R";
+
+/** Every load case, in order. */
+export const LOAD_CASES: readonly LoadCase[] = ["D", "L", "Lr", "S", "R"];
+
+/** The closed set of things a takedown input can get wrong (same codes as the takedown contract). */
+export type ProblemCode =
+  | "duplicateMark"
+  | "unknownSupport"
+  | "cycle"
+  | "badSpan"
+  | "supportOutside"
+  | "selfSupport"
+  | "columnWithoutBase"
+  | "unitMismatch"
+  | "missingColumn"
+  | "missingTable"
+  | "badValue"
+  | "unknownZone"
+  | "unknownType"
+  | "missingPosition"
+  | "foreignSheet";
+
+/** One thing wrong with the input, with the sheet and A1 cell to select. */
+export interface Problem {
+  readonly code: ProblemCode;
+  readonly message: string;
+  readonly sheet: string;
+  readonly cell: string;
+  readonly mark?: string;
+}
+
+/** A cell of a sheet, 0-based row and column. */
+export interface CellRef {
+  readonly sheet: string;
+  readonly row: number;
+  readonly col: number;
+}

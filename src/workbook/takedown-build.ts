@@ -1,0 +1,156 @@
+/**
+ * The takedown orchestrator: reads the engineer's tables through a workbook port, runs the
+ * takedown engine (model, checks, order, sheet plan), writes the generated sheet in whole blocks,
+ * and reads the computed results back for the summary and the JSON. It only talks to the port,
+ * so the task pane (Office adapter) and the CLI (HyperFormula adapter) run the same build.
+ */
+import { cellAddress, sheetRef } from "./a1";
+import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type Problem as EngineProblem, type SheetPlan, type TableData } from "../engine/takedown";
+import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
+import type { BuildTakedown, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
+
+/** Default name of the generated sheet (design.md section 5). */
+export const DEFAULT_TAKEDOWN_SHEET = "Takedown";
+
+/** Rows per block written through the port (keeps each Office request well under its size limit). */
+export const WRITE_BLOCK_ROWS = 2000;
+
+/** Rows per block read back. */
+const READ_BLOCK_ROWS = 5000;
+
+// The engine's shapes must stay those of the contract: these assignments fail to compile otherwise.
+const _problemShape: (p: EngineProblem) => Problem = (p) => p;
+void _problemShape;
+
+/** First line of the generated sheet: the marker the add-in recognises, and what the sheet is. */
+export function sheetTitle(options: TakedownOptions): string {
+  const tables = [`Zones: ${options.zones}`, `Members: ${options.members}`, ...(options.loads ? [`Loads: ${options.loads}`] : [])].join(", ");
+  return `${GENERATED_MARKER}: load takedown (${options.units}) from ${tables}.`;
+}
+
+async function report(progress: Progress | undefined, fraction: number, message: string): Promise<void> {
+  if (progress) await progress(fraction, message);
+}
+
+function missingTable(ref: string, role: string, error: unknown): Problem {
+  const detail = error instanceof Error ? error.message : String(error);
+  return { code: "missingTable", message: `The ${role} table "${ref}" could not be read: ${detail}`, sheet: ref, cell: "A1" };
+}
+
+/** Read the input tables; a table that cannot be read is a problem. */
+async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise<{ zones?: TableData; members?: TableData; loads?: TableData; problems: Problem[] }> {
+  const problems: Problem[] = [];
+  const read = async (ref: string, role: string): Promise<RangeData | undefined> => {
+    try {
+      return await port.readTable(ref);
+    } catch (e) {
+      problems.push(missingTable(ref, role, e));
+      return undefined;
+    }
+  };
+  const zones = await read(options.zones, "Zones");
+  const members = await read(options.members, "Members");
+  const loads = options.loads ? await read(options.loads, "Loads") : undefined;
+  return { ...(zones ? { zones } : {}), ...(members ? { members } : {}), ...(loads ? { loads } : {}), problems };
+}
+
+/** Rows from..to (exclusive) of the plan as a dense block. */
+function blockOf(cells: SheetPlan["cells"], from: number, to: number): CellInput[][] {
+  let width = 0;
+  for (let r = from; r < to; r++) width = Math.max(width, cells[r]?.length ?? 0);
+  const out: CellInput[][] = [];
+  for (let r = from; r < to; r++) {
+    const src = cells[r] ?? [];
+    const row: CellInput[] = new Array<CellInput>(width).fill(null);
+    for (let c = 0; c < src.length; c++) {
+      const v: PlanCell | undefined = src[c];
+      if (v !== undefined) row[c] = v;
+    }
+    out.push(row);
+  }
+  return out;
+}
+
+/** Write the plan in blocks of rows, reporting progress between blocks. */
+async function writePlan(port: WorkbookPort, plan: SheetPlan, progress: Progress | undefined): Promise<void> {
+  const total = plan.cells.length;
+  for (let from = 0; from < total; from += WRITE_BLOCK_ROWS) {
+    const to = Math.min(total, from + WRITE_BLOCK_ROWS);
+    await port.writeBlock(plan.sheet, from, 0, blockOf(plan.cells, from, to));
+    await report(progress, 0.4 + (0.4 * to) / Math.max(1, total), `Writing rows ${from + 1} to ${to} of ${total}`);
+  }
+}
+
+/**
+ * Read back the computed cells the results need: the balance and the result columns of every
+ * member row, in blocks of rows.
+ */
+async function readBack(port: WorkbookPort, plan: SheetPlan, progress: Progress | undefined): Promise<CellReader> {
+  const sheet = sheetRef(plan.sheet);
+  const chunks: RangeData[] = [];
+  const balanceCols = Math.max(1, plan.balance.caseCols.length);
+  chunks.push(await port.readTable(`${sheet}!${cellAddress(plan.balance.appliedRow, 0)}:${cellAddress(plan.balance.supportsRow, balanceCols)}`));
+  const first = plan.headerRow + 1;
+  const last = plan.cells.length - 1;
+  const left = Math.min(...plan.layout.r1, plan.layout.areaT);
+  for (let from = first; from <= last; from += READ_BLOCK_ROWS) {
+    const to = Math.min(last, from + READ_BLOCK_ROWS - 1);
+    chunks.push(await port.readTable(`${sheet}!${cellAddress(from, left)}:${cellAddress(to, plan.layout.width - 1)}`));
+    await report(progress, 0.85 + (0.1 * (to - first + 1)) / Math.max(1, last - first + 1), "Reading the results");
+  }
+  return (row, col): CellValue | undefined => {
+    for (const c of chunks) {
+      const r = row - c.top;
+      const k = col - c.left;
+      if (r >= 0 && r < c.values.length && k >= 0 && k < (c.values[r]?.length ?? 0)) return c.values[r]![k];
+    }
+    return undefined;
+  };
+}
+
+/**
+ * Build the takedown: read the tables, check and order the load path, write the generated sheet
+ * (rebuilt in place when it is the add-in's own; a user's sheet of that name is never replaced
+ * unless `replaceForeign`), and read the results back.
+ * Problems with individual members are reported and the rest is still written; problems with
+ * the tables themselves (missing, missing columns, wrong units) stop the build before anything
+ * is written.
+ */
+export const buildTakedown: BuildTakedown = async (port, options, progress) => {
+  await report(progress, 0, "Reading the tables");
+  const inputs = await readInputs(port, options);
+  if (!inputs.zones || !inputs.members) return { ok: false, problems: inputs.problems };
+  if (options.native) {
+    const p: Problem = { code: "badValue", message: "The hand-off mode (classic spreadsheet functions only) is not available in this version; build without it.", sheet: inputs.members.sheet, cell: "A1" };
+    return { ok: false, problems: [...inputs.problems, p] };
+  }
+  await report(progress, 0.1, "Checking the load path");
+  const sheet = options.sheetName ?? DEFAULT_TAKEDOWN_SHEET;
+  const title = sheetTitle(options);
+  const planned = planTakedown({
+    zones: inputs.zones,
+    members: inputs.members,
+    ...(inputs.loads ? { loads: inputs.loads } : {}),
+    units: options.units,
+    ...(options.mapping ? { mapping: options.mapping } : {}),
+    sheet,
+    title,
+  });
+  const problems: Problem[] = [...inputs.problems, ...planned.problems];
+  if (!planned.plan || !planned.model || problems.some((p) => FATAL_CODES.has(p.code))) return { ok: false, problems };
+  await report(progress, 0.3, "Preparing the sheet");
+  try {
+    await port.prepareSheet(sheet, title, options.replaceForeign === true);
+  } catch (e) {
+    if (!(e instanceof ForeignSheetError)) throw e;
+    return { ok: false, problems: [...problems, { code: "foreignSheet", message: e.message, sheet, cell: "A1" }] };
+  }
+  await writePlan(port, planned.plan, progress);
+  await report(progress, 0.8, "Calculating");
+  await port.flush();
+  const read = await readBack(port, planned.plan, progress);
+  const json: TakedownJson = readResults(planned.plan, planned.model, read, problems);
+  const summary = summarize(json, planned.plan, planned.model, planned.levels);
+  await report(progress, 1, "Done");
+  return { ok: true, problems, summary, json, sheet };
+};
