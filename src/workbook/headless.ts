@@ -90,10 +90,15 @@ export function registerLoadpathFunctions(distDir: string = defaultDistDir()): L
   return bundle;
 }
 
-/** The engine configuration used everywhere headless. */
+/**
+ * The engine configuration used everywhere headless. Smart rounding is off: HyperFormula would
+ * round every output to 10 significant digits, while Excel keeps the full double in the cell
+ * (and in the file) and only rounds what it displays.
+ */
 export const HEADLESS_CONFIG: Partial<ConfigParams> = {
   licenseKey: "gpl-v3",
   language: "enGB",
+  smartRounding: false,
 };
 
 /** A HyperFormula instance with the LOADPATH functions, and the bundle they came from. */
