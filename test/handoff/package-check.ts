@@ -34,7 +34,8 @@ function parseXml(text: string, part: string, problems: string[]): Document {
   const errors: string[] = [];
   const doc = new DOMParser({
     errorHandler: {
-      warning: () => undefined,
+      // the parser recovers from mismatched tags with a warning; a program would not
+      warning: (msg: string) => void errors.push(msg),
       error: (msg: string) => void errors.push(msg),
       fatalError: (msg: string) => void errors.push(msg),
     },
@@ -56,7 +57,7 @@ function dirOf(part: string): string {
 /** Resolve a relationship target against the folder of the part that owns the .rels file. */
 function resolveTarget(relsPart: string, target: string): string {
   if (target.startsWith("/")) return target.slice(1);
-  const owner = relsPart.replace(/_rels\/([^/]+)\.rels$/, "$1");
+  const owner = relsPart === "_rels/.rels" ? "" : relsPart.replace(/_rels\/([^/]+)\.rels$/, "$1");
   const parts = (dirOf(owner) === "" ? [] : dirOf(owner).split("/")).concat(target.split("/"));
   const out: string[] = [];
   for (const p of parts) {
@@ -138,7 +139,7 @@ export async function inspectXlsx(path: string): Promise<PackageReport> {
     }
     const doc = parseXml(await text(s.part), s.part, problems);
     for (const c of elements(doc, "c")) {
-      if (c.getAttribute("cm") !== null) problems.push(`${s.name}!${c.getAttribute("r")}: dynamic-array cell metadata`);
+      if (c.hasAttribute("cm")) problems.push(`${s.name}!${c.getAttribute("r")}: dynamic-array cell metadata`);
       const f = elements(c as unknown as Document, "f")[0];
       if (f && (f.textContent ?? "") !== "") formulas.push({ sheet: s.name, address: c.getAttribute("r") ?? "", formula: f.textContent ?? "" });
     }
