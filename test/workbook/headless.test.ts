@@ -85,6 +85,11 @@ describe("LOADPATH functions in the engine", () => {
     expect(at(hf, "H1")).toBe(0);
   });
 
+  it("registered for the enUS language as well as enGB", async () => {
+    const { hf } = await createHeadless({ sheets: { S: [["=LOADPATH.MOMENT_MAX(10,2)"]] }, config: { language: "enUS" } });
+    expect(hf.getCellValue({ sheet: 0, row: 0, col: 0 })).toBe(25); // AISC case 1: wL^2/8
+  });
+
   it("dependents follow a changed input", async () => {
     const hf = await engine([[20, 1, "=LOADPATH.MOMENT_MAX(A1,B1)", "=C1*2"]]);
     expect(at(hf, "D1")).toBe(100);
