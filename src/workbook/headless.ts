@@ -99,6 +99,9 @@ export const HEADLESS_CONFIG: Partial<ConfigParams> = {
   licenseKey: "gpl-v3",
   language: "enGB",
   smartRounding: false,
+  // Range arithmetic element by element, as Excel, LibreOffice Calc and Gnumeric evaluate the
+  // arguments of SUMPRODUCT: the hand-off takedown's formulas rely on it (src/engine/native).
+  useArrayArithmetic: true,
 };
 
 /** A HyperFormula instance with the LOADPATH functions, and the bundle they came from. */

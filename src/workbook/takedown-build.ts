@@ -5,6 +5,7 @@
  * so the task pane (Office adapter) and the CLI (HyperFormula adapter) run the same build.
  */
 import { cellAddress, sheetRef } from "./a1";
+import { createNativeWriter, type NativeFormulaWriter } from "../engine/native/takedown-writer";
 import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type Problem as EngineProblem, type SheetPlan, type TableData } from "../engine/takedown";
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
 import type { BuildTakedown, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
@@ -25,7 +26,21 @@ void _problemShape;
 /** First line of the generated sheet: the marker the add-in recognises, and what the sheet is. */
 export function sheetTitle(options: TakedownOptions): string {
   const tables = [`Zones: ${options.zones}`, `Members: ${options.members}`, ...(options.loads ? [`Loads: ${options.loads}`] : [])].join(", ");
-  return `${GENERATED_MARKER}: load takedown (${options.units}) from ${tables}.`;
+  const handOff = options.native ? " Hand-off version: classic spreadsheet functions only, no add-in needed." : "";
+  return `${GENERATED_MARKER}: load takedown (${options.units}) from ${tables}.${handOff}`;
+}
+
+/** First line of the hand-off version's helper sheet (src/engine/native). */
+export function helperTitle(sheet: string): string {
+  return `${GENERATED_MARKER}: helper cells of the hand-off takedown on sheet "${sheet}" (exact largest shear and moment).`;
+}
+
+/** Write the hand-off writer's helper sheet in blocks of rows (its sheet is prepared by the caller). */
+async function writeHelper(port: WorkbookPort, writer: NativeFormulaWriter, sheet: string): Promise<void> {
+  const rows = writer.helperCells(helperTitle(sheet));
+  for (let from = 0; from < rows.length; from += WRITE_BLOCK_ROWS) {
+    await port.writeBlock(writer.helperSheet, from, 0, rows.slice(from, from + WRITE_BLOCK_ROWS));
+  }
 }
 
 async function report(progress: Progress | undefined, fraction: number, message: string): Promise<void> {
@@ -120,13 +135,10 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   await report(progress, 0, "Reading the tables");
   const inputs = await readInputs(port, options);
   if (!inputs.zones || !inputs.members) return { ok: false, problems: inputs.problems };
-  if (options.native) {
-    const p: Problem = { code: "badValue", message: "The hand-off mode (classic spreadsheet functions only) is not available in this version; build without it.", sheet: inputs.members.sheet, cell: "A1" };
-    return { ok: false, problems: [...inputs.problems, p] };
-  }
   await report(progress, 0.1, "Checking the load path");
   const sheet = options.sheetName ?? DEFAULT_TAKEDOWN_SHEET;
   const title = sheetTitle(options);
+  const writer = options.native ? createNativeWriter({ sheet }) : undefined;
   const planned = planTakedown({
     zones: inputs.zones,
     members: inputs.members,
@@ -135,22 +147,26 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
     ...(options.mapping ? { mapping: options.mapping } : {}),
     sheet,
     title,
+    ...(writer ? { writer } : {}),
   });
   const problems: Problem[] = [...inputs.problems, ...planned.problems];
   if (!planned.plan || !planned.model || problems.some((p) => FATAL_CODES.has(p.code))) return { ok: false, problems };
   await report(progress, 0.3, "Preparing the sheet");
   try {
     await port.prepareSheet(sheet, title, options.replaceForeign === true);
+    if (writer) await port.prepareSheet(writer.helperSheet, helperTitle(sheet), options.replaceForeign === true);
   } catch (e) {
     if (!(e instanceof ForeignSheetError)) throw e;
     return { ok: false, problems: [...problems, { code: "foreignSheet", message: e.message, sheet, cell: "A1" }] };
   }
   await writePlan(port, planned.plan, progress);
+  if (writer) await writeHelper(port, writer, sheet);
   await report(progress, 0.8, "Calculating");
   await port.flush();
   const read = await readBack(port, planned.plan, progress);
   const json: TakedownJson = readResults(planned.plan, planned.model, read, problems);
   const summary = summarize(json, planned.plan, planned.model, planned.levels);
   await report(progress, 1, "Done");
-  return { ok: true, problems, summary, json, sheet };
+  // Every flexural member of a takedown rests on two supports, so the hand-off writer spells all of them.
+  return { ok: true, problems, summary, json, sheet, ...(writer ? { valueOnly: [] } : {}) };
 };
