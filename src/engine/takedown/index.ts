@@ -68,7 +68,7 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
   const members = matchTable(MEMBERS_SPEC, input.members, input.units, input.mapping?.members);
   const loads = input.loads ? matchTable(LOADS_SPEC, input.loads, input.units, input.mapping?.loads) : undefined;
   const headerProblems = [...zones.problems, ...members.problems, ...(loads?.problems ?? [])];
-  if (members.table.columns.zone !== undefined && members.table.columns.trib === undefined) {
+  if (members.table.columns.zone !== undefined && members.table.columns.trib === undefined && !members.problems.some((p) => p.code === "missingColumn")) {
     const d = input.members;
     headerProblems.push({ code: "missingColumn", message: "The Members table has a Zone column but no Trib column: zone loads need a trib width.", sheet: d.sheet, cell: a1(d.top, d.left) });
   }

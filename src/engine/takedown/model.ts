@@ -303,8 +303,8 @@ function readLoad(r: RowReader<LoadsColumn>, zones: ReadonlyMap<string, Zone>): 
   const to = r.number("to", `${label}: To`, mark).input;
   const f = from?.value ?? null;
   const t = to?.value ?? null;
-  if (kind !== "point" && (f === null) !== (t === null)) r.report(f === null ? "from" : "to", "badValue", `${label}: give both From and To, or neither for the full length.`, mark);
-  if (kind !== "point" && f !== null && t !== null && !(t > f)) r.report("to", "badValue", `${label}: To ${formatNumber(t)} must be greater than From ${formatNumber(f)}.`, mark);
+  if (kind !== undefined && kind !== "point" && (f === null) !== (t === null)) r.report(f === null ? "from" : "to", "badValue", `${label}: give both From and To, or neither for the full length.`, mark);
+  if (kind !== undefined && kind !== "point" && f !== null && t !== null && !(t > f)) r.report("to", "badValue", `${label}: To ${formatNumber(t)} must be greater than From ${formatNumber(f)}.`, mark);
   return {
     sheetRow,
     sheet: r.table.data.sheet,

@@ -144,7 +144,8 @@ function areaMags(ctx: Context, zone: Zone | null, row: number, extra: Readonly<
     const lred = ch(ctx, "Lred");
     if (lred !== undefined) mags.set(lred, toKips(ctx, `${sheetCellRef(liveCell)}*${width}`, false));
     const at = ch(ctx, "AT");
-    if (at !== undefined) mags.set(at, width);
+    // A load of 1 per unit area over the width: its reactions are tributary areas (1* also reads a blank width as 0).
+    if (at !== undefined) mags.set(at, `1*${width}`);
   }
   return mags;
 }
@@ -420,7 +421,7 @@ function writeColumnHeaders(ctx: Context, row: number): void {
     [COL.length, `Length (${u.length})`],
     [COL.supports, `Supports at (${u.length})`],
     [COL.kind, "Load"],
-    [COL.source, "From"],
+    [COL.source, "Source"],
     [COL.width, `Trib or width (${u.length})`],
     [COL.from, `Start (${u.length})`],
     [COL.to, `End (${u.length})`],
