@@ -34,6 +34,7 @@ export const EXIT = { ok: 0, failed: 1, usage: 2 } as const;
 export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>> = {
   recalc: () => import(/* webpackMode: "eager" */ "./commands/recalc"),
   demo: () => import(/* webpackMode: "eager" */ "./commands/demo"),
+  takedown: () => import(/* webpackMode: "eager" */ "./commands/takedown"),
 };
 
 /** The process's own streams. */

@@ -261,8 +261,9 @@ function kllFormula(ctx: Context, m: Member, element: string): string {
 /** Length and supports cells of a flexural member; returns the member refs for its formulas. */
 function writeGeometry(ctx: Context, m: Member, row: number): MemberRefs {
   const span = sheetCellRef(m.span!.cell);
-  const so = m.startOverhang ? sheetCellRef(m.startOverhang.cell) : null;
-  const eo = m.endOverhang ? sheetCellRef(m.endOverhang.cell) : null;
+  // A blank overhang cell is no overhang (a filled one, even 0, is referenced and stays live).
+  const so = m.startOverhang && m.startOverhang.value !== null ? sheetCellRef(m.startOverhang.cell) : null;
+  const eo = m.endOverhang && m.endOverhang.value !== null ? sheetCellRef(m.endOverhang.cell) : null;
   if (so === null && eo === null) {
     ctx.grid.set(row, COL.length, f(span));
     return { span: colAbs(row, COL.length), supports: null };
@@ -282,7 +283,7 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   if (zr) rows.push(zr);
   for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, false));
   for (const d of ctx.into.get(m.index) ?? []) rows.push(receivedRow(ctx, d, false));
-  const overhangs = m.startOverhang !== null || m.endOverhang !== null;
+  const overhangs = (m.startOverhang?.value ?? null) !== null || (m.endOverhang?.value ?? null) !== null;
   const n = Math.max(1, rows.length, overhangs ? 2 : 1);
   const member = writeGeometry(ctx, m, row);
   const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null;
@@ -350,7 +351,9 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
   const at = ch(ctx, "AT");
   if (at !== undefined) {
     const aboveFloors = above.map((d) => a1Absolute(ctx.places.get(d.from)!.row, layout.floors));
-    const here = live.includes(at) ? `IF(${a1(row, layout.arriving[at]!)}>0,1,0)` : "0";
+    // A level counts as a floor supported when floor live load (reducible or not) arrives there.
+    const liveIndex = ch(ctx, "L");
+    const here = liveIndex !== undefined && live.includes(liveIndex) ? `IF(${a1(row, layout.arriving[liveIndex]!)}>0,1,0)` : "0";
     const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
     grid.set(row, layout.areaT, f(totalOf("AT")));
     grid.set(row, layout.floors, f(here + floorsAbove));

@@ -1,0 +1,291 @@
+/**
+ * `loadpath takedown <in.xlsx> -o <out.xlsx> [--json result.json] [--units US|SI] ...`: the
+ * takedown builder headless. Reads the workbook's Zones, Members and (optional) Loads tables,
+ * builds the takedown through the HyperFormula adapter of the workbook port (the same build the
+ * task pane runs in Excel), writes the workbook with the generated sheet (formulas with their
+ * computed values cached) and the JSON of design.md section 5. Problems print as
+ * `Sheet!A1: message` and make the exit status 1. The input file is never written over.
+ */
+import { writeFileSync } from "node:fs";
+import { join, resolve } from "node:path";
+import { parseArgs } from "node:util";
+import { sheetRef } from "../../workbook/a1";
+import { exportSheets, MemoryWorkbookPort } from "../../workbook/memory-port";
+import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
+import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
+import type { ColumnMapping, Problem, TakedownBuildResult, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
+import { EXIT, type CliIO, type Command } from "../main";
+import type { DemoPart } from "./demo";
+
+const USAGE = `Usage: loadpath takedown <in.xlsx> -o <out.xlsx> [--json <result.json>] [--units US|SI]
+                         [--zones <name>] [--members <name>] [--loads <name>]
+                         [--map <table>.<Column>=<your header> ...] [--sheet <name>] [--replace]
+
+Builds the gravity load takedown of the workbook's member tables: every member in takedown order
+with its loads, reactions, shear and moment, tributary area and live load reduction; every
+column level by level with cumulative loads and the factored load; the foundation reactions and
+a load balance. Everything is written as live formulas on a generated sheet (default
+"${DEFAULT_TAKEDOWN_SHEET}") that references your tables, with the computed values cached.
+
+  -o, --output   workbook to write (never the input file)
+  --json         also write the results as JSON
+  --units        US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default US
+  --zones, --members, --loads
+                 Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
+                 default: the table or sheet named Zones, Members and (if present) Loads
+  --map          a column whose header differs, e.g. --map members.Trib="Trib width"
+  --sheet        name of the generated sheet
+  --replace      replace a same-named sheet the add-in did not create
+
+Problems are listed on stderr as Sheet!A1: message. Exit status: 0 built without problems,
+1 problems found (what could be built is still written), 2 usage or file errors.
+Results need review by a qualified engineer; local codes govern.`;
+
+/** One stderr line per problem: `Sheet!A1: message`. */
+export function describeTakedownProblem(p: Problem): string {
+  return `${sheetRef(p.sheet)}!${p.cell}: ${p.message}`;
+}
+
+/**
+ * Parse `--map` entries: `members.Trib=Trib width` -> { members: { Trib: "Trib width" } }.
+ * @param entries - the option's values
+ * @returns the mapping, or an error message naming the bad entry
+ */
+export function parseMappings(entries: readonly string[]): { mapping: ColumnMapping } | { error: string } {
+  const out: Record<"zones" | "members" | "loads", Record<string, string>> = { zones: {}, members: {}, loads: {} };
+  for (const e of entries) {
+    const m = /^\s*(zones|members|loads)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
+    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header>, table zones, members or loads (e.g. members.Trib="Trib width").` };
+    out[m[1]!.toLowerCase() as "zones" | "members" | "loads"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
+  }
+  return { mapping: out };
+}
+
+/** A name given, or the table/sheet named `fallback` when the workbook has one. */
+function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string): string | undefined {
+  if (given !== undefined) return given;
+  const key = fallback.toLowerCase();
+  const table = wb.tables.find((t) => t.name.toLowerCase() === key);
+  if (table) return table.name;
+  return wb.sheets.find((s) => s.name.toLowerCase() === key)?.name;
+}
+
+function fmt(x: number | undefined, digits = 1): string {
+  return x === undefined || !Number.isFinite(x) ? "-" : x.toFixed(digits);
+}
+
+/**
+ * Lines of the column stacks: each column level by level with its cumulative loads, reduced
+ * live load and factored load.
+ * @param json - the takedown's results
+ */
+export function columnLines(json: TakedownJson): string[] {
+  const cases = Object.keys(json.balance);
+  const force = json.units === "US" ? "kip" : "kN";
+  const area = json.units === "US" ? "ft2" : "m2";
+  const head = ["Column".padEnd(14), "Level".padEnd(7), ...cases.map((c) => `${c} ${force}`.padStart(10)), `A_T ${area}`.padStart(10), "Floors".padStart(6), "LLR".padStart(6), `L red. ${force}`.padStart(11), `LRFD ${force}`.padStart(10)];
+  const lines = [head.join(" ")];
+  for (const [mark, c] of Object.entries(json.columns)) {
+    const governing = Math.max(...Object.values(c.combos));
+    lines.push(
+      [
+        mark.padEnd(14),
+        c.level.padEnd(7),
+        ...cases.map((k) => fmt(c.cumulative[k]).padStart(10)),
+        fmt(c.tributaryArea, 0).padStart(10),
+        String(c.floors).padStart(6),
+        fmt(c.llrFactor, 3).padStart(6),
+        fmt(c.reducedLive).padStart(11),
+        fmt(governing).padStart(10),
+      ].join(" "),
+    );
+  }
+  return lines;
+}
+
+/**
+ * Lines of the load balance: per case, the total applied load and the total of the foundation
+ * and wall reactions.
+ * @param json - the takedown's results
+ */
+export function balanceLines(json: TakedownJson): string[] {
+  const force = json.units === "US" ? "kip" : "kN";
+  const lines = [`${"Case".padEnd(5)} ${`Applied ${force}`.padStart(14)} ${`Supports ${force}`.padStart(15)} ${"Difference".padStart(12)}`];
+  for (const [c, b] of Object.entries(json.balance)) {
+    lines.push(`${c.padEnd(5)} ${fmt(b.applied, 3).padStart(14)} ${fmt(b.supports, 3).padStart(15)} ${(b.applied - b.supports).toExponential(1).padStart(12)}`);
+  }
+  return lines;
+}
+
+/** What a takedown run needs besides the files. */
+export interface TakedownRun {
+  readonly units: UnitSystem;
+  readonly zones?: string;
+  readonly members?: string;
+  readonly loads?: string;
+  readonly mapping?: ColumnMapping;
+  readonly sheet?: string;
+  readonly replace?: boolean;
+}
+
+/** The result of a run, with the workbook and the port it was built in. */
+export interface TakedownFileResult {
+  readonly result: TakedownBuildResult;
+  readonly workbook: XlsxWorkbook;
+  readonly port: MemoryWorkbookPort;
+}
+
+/**
+ * Build the takedown of an .xlsx file in memory (nothing written).
+ * @param input - path of the workbook
+ * @param run - unit system, table names, mapping
+ * @throws Error when the file cannot be read, or a table name is missing and no default exists
+ */
+export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
+  const workbook = await readXlsx(input);
+  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })) });
+  const zones = tableName(workbook, run.zones, "Zones");
+  const members = tableName(workbook, run.members, "Members");
+  if (zones === undefined || members === undefined) {
+    throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
+  }
+  const loads = tableName(workbook, run.loads, "Loads");
+  const options: TakedownOptions = {
+    zones,
+    members,
+    ...(loads !== undefined ? { loads } : {}),
+    units: run.units,
+    ...(run.mapping ? { mapping: run.mapping } : {}),
+    ...(run.sheet ? { sheetName: run.sheet } : {}),
+    replaceForeign: run.replace === true,
+  };
+  const result = await buildTakedown(port, options);
+  return { result, workbook, port };
+}
+
+/** The JSON written even when nothing could be built (the problems are in it). */
+function jsonOf(result: TakedownBuildResult, units: UnitSystem): TakedownJson {
+  return result.json ?? { units, members: {}, columns: {}, foundations: {}, balance: {}, problems: result.problems };
+}
+
+/**
+ * Run a takedown on a file and write its outputs.
+ * @param input - workbook to read
+ * @param output - workbook to write (undefined: nothing written)
+ * @param jsonPath - JSON to write (undefined: none)
+ * @param run - build options
+ * @param io - output streams
+ * @returns the exit status
+ */
+export async function takedownFile(input: string, output: string | undefined, jsonPath: string | undefined, run: TakedownRun, io: CliIO): Promise<number> {
+  for (const target of [output, jsonPath]) {
+    if (target !== undefined && resolve(target) === resolve(input)) {
+      io.err(`loadpath takedown: ${target} is the input file; name another file, the input is never written over.`);
+      return EXIT.usage;
+    }
+  }
+  const { result, workbook, port } = await takedownOfFile(input, run);
+  for (const p of result.problems) io.err(describeTakedownProblem(p));
+  if (result.ok && result.json) {
+    const counts = Object.entries(result.summary?.membersByType ?? {}).map(([t, n]) => `${n} ${t}${n === 1 ? "" : "s"}`);
+    io.out(`Takedown of ${counts.join(", ")} on ${result.summary?.levels.length ?? 0} level(s), written to sheet "${result.sheet}".`);
+    io.out("");
+    for (const line of columnLines(result.json)) io.out(line);
+    io.out("");
+    for (const line of balanceLines(result.json)) io.out(line);
+  } else {
+    io.out("Nothing was built: the problems above stop the takedown.");
+  }
+  if (output !== undefined && result.ok) {
+    cacheResults(workbook, port.headless);
+    exportSheets(port, workbook.excel);
+    await writeXlsx(workbook, resolve(output));
+    io.out(`Workbook written to ${output}.`);
+  }
+  if (jsonPath !== undefined) {
+    writeFileSync(resolve(jsonPath), JSON.stringify(jsonOf(result, run.units), null, 2) + "\n");
+    io.out(`Results written to ${jsonPath}.`);
+  }
+  return result.problems.length > 0 || !result.ok ? EXIT.failed : EXIT.ok;
+}
+
+const takedown: Command = {
+  summary: "build the load takedown of a workbook's member tables headless",
+  usage: USAGE,
+  async run(args, io) {
+    let parsed;
+    try {
+      parsed = parseArgs({
+        args: [...args],
+        options: {
+          output: { type: "string", short: "o" },
+          json: { type: "string" },
+          units: { type: "string" },
+          zones: { type: "string" },
+          members: { type: "string" },
+          loads: { type: "string" },
+          map: { type: "string", multiple: true },
+          sheet: { type: "string" },
+          replace: { type: "boolean" },
+        },
+        allowPositionals: true,
+      });
+    } catch (e) {
+      io.err(`loadpath takedown: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
+      return EXIT.usage;
+    }
+    const [input, ...extra] = parsed.positionals;
+    if (input === undefined || extra.length > 0) {
+      io.err(input === undefined ? `loadpath takedown: no input workbook given.\n\n${USAGE}` : `loadpath takedown: one input workbook at a time (got ${parsed.positionals.length}).`);
+      return EXIT.usage;
+    }
+    const unitsText = (parsed.values.units ?? "US").toUpperCase();
+    if (unitsText !== "US" && unitsText !== "SI") {
+      io.err(`loadpath takedown: --units is US or SI (got "${parsed.values.units}").`);
+      return EXIT.usage;
+    }
+    const maps = parseMappings(parsed.values.map ?? []);
+    if ("error" in maps) {
+      io.err(`loadpath takedown: ${maps.error}`);
+      return EXIT.usage;
+    }
+    const v = parsed.values;
+    const run: TakedownRun = {
+      units: unitsText,
+      mapping: maps.mapping,
+      ...(v.zones !== undefined ? { zones: v.zones } : {}),
+      ...(v.members !== undefined ? { members: v.members } : {}),
+      ...(v.loads !== undefined ? { loads: v.loads } : {}),
+      ...(v.sheet !== undefined ? { sheet: v.sheet } : {}),
+      replace: v.replace === true,
+    };
+    try {
+      return await takedownFile(input, v.output, v.json, run, io);
+    } catch (e) {
+      io.err(`loadpath takedown: ${e instanceof Error ? e.message : String(e)}`);
+      return EXIT.usage;
+    }
+  },
+};
+
+export default takedown;
+
+/** The demo's takedown part: sample building (a), its column loads and load balance. */
+export const takedownDemoPart: DemoPart = {
+  title: "Load takedown of sample-workbooks/steel-office-us.xlsx (invented three-level steel office, US units)",
+  async run(io, ctx) {
+    const input = join(ctx.root, "sample-workbooks", "steel-office-us.xlsx");
+    const { result } = await takedownOfFile(input, { units: "US" });
+    for (const p of result.problems) io.err(describeTakedownProblem(p));
+    if (!result.json) return EXIT.failed;
+    const s = result.summary!;
+    io.out(`${Object.entries(s.membersByType).map(([t, n]) => `${n} ${t}s`).join(", ")}; levels from the top: ${s.levels.join(", ")}.`);
+    io.out("");
+    io.out("Column loads, level by level (cumulative; live load reduced per ASCE/SEI 7-22 Sec. 4.7):");
+    for (const line of columnLines(result.json)) io.out(line);
+    io.out("");
+    io.out("Load balance (applied load = foundation reactions):");
+    for (const line of balanceLines(result.json)) io.out(line);
+    return result.problems.length > 0 ? EXIT.failed : EXIT.ok;
+  },
+};
