@@ -1,18 +1,27 @@
 /**
  * Generates sample-workbooks/beam-schedule.xlsx: an invented member schedule (marks, spans,
  * loads and sections are made up for the demo) that uses the LOADPATH beam functions, with the
- * results computed headless and cached in the file so it reads correctly without the add-in.
+ * results computed headless and cached in the file so it reads correctly without the add-in. Its
+ * "Gravity loads" sheet (./gravity-loads.ts) derives line loads, reduced live loads and a column's
+ * load combinations with the LOADPATH load functions; members F-203 and F-204 take their line
+ * loads from it. The output is byte for byte the same on every run (fixed dates in the package).
  *
  *   npm run build && npx tsx sample-workbooks/make-beam-schedule.ts
  *
  * Units: kip-ft (spans ft, line loads kip/ft, point loads kip, E ksi, I in^4, deflection in).
  */
+import { writeFileSync } from "node:fs";
 import { join } from "node:path";
 import ExcelJS from "exceljs";
-import { cacheResults, evaluateWorkbook, fromExcelJs, writeXlsx } from "../src/workbook/xlsx";
+import JSZip from "jszip";
+import { cacheResults, evaluateWorkbook, fromExcelJs } from "../src/workbook/xlsx";
+import { GRAVITY_SHEET, gravityRef, writeGravityLoadsSheet } from "./gravity-loads";
+
+/** Date stamped in the document properties and on every part of the package, so reruns are identical. */
+const FIXED_DATE = new Date(Date.UTC(2025, 0, 1));
 
 /** One load row: kind | magnitude | start | end | end magnitude (a string starting with "=" is a formula). */
-type LoadRow = readonly [string, number, number | string | null, number | string | null, number | null];
+type LoadRow = readonly [string, number | string, number | string | null, number | string | null, number | null];
 /** One support row: position | type. */
 type SupportRow = readonly [number | string, string];
 
@@ -107,6 +116,30 @@ const MEMBERS: readonly Member[] = [
       ["point", 2.0, 8, null, null],
     ],
     supports: [[0, "fixed"]],
+  },
+  {
+    mark: "F-203",
+    description: "Interior floor beam, dead and live line loads from the Gravity loads sheet",
+    spanFt: 28,
+    eKsi: 29000,
+    iIn4: 640,
+    limit: 360,
+    loads: [
+      ["line", `=${gravityRef("wdInt")}`, null, null, null],
+      ["line", `=${gravityRef("wlInt")}`, null, null, null],
+    ],
+  },
+  {
+    mark: "F-204",
+    description: "Edge floor beam (slab overhang, cladding), line loads from the Gravity loads sheet",
+    spanFt: 28,
+    eKsi: 29000,
+    iIn4: 590,
+    limit: 360,
+    loads: [
+      ["line", `=${gravityRef("wdEdge")}`, null, null, null],
+      ["line", `=${gravityRef("wlEdge")}`, null, null, null],
+    ],
   },
 ];
 
@@ -209,13 +242,25 @@ function writeDiagramSheet(ws: ExcelJS.Worksheet): void {
 export async function makeBeamSchedule(output: string): Promise<void> {
   const excel = new ExcelJS.Workbook();
   excel.creator = "Loadpath sample generator";
+  excel.created = FIXED_DATE;
+  excel.modified = FIXED_DATE;
   writeBeamsSheet(excel.addWorksheet("Beams"));
   writeLoadsSheet(excel.addWorksheet("Loads"));
   writeDiagramSheet(excel.addWorksheet("Diagram"));
+  writeGravityLoadsSheet(excel.addWorksheet(GRAVITY_SHEET));
   const wb = fromExcelJs(excel);
   const summary = cacheResults(wb, await evaluateWorkbook(wb));
   if (summary.problems.length > 0) throw new Error(`the sample has formula errors: ${summary.problems.map((p) => `${p.sheet}!${p.address} ${p.message}`).join("; ")}`);
-  await writeXlsx(wb, output);
+  writeFileSync(output, await deterministicPackage(await excel.xlsx.writeBuffer()));
+}
+
+/** The package with every part's zip timestamp set to {@link FIXED_DATE} (the zip writer stamps the current time). */
+async function deterministicPackage(xlsx: ArrayBuffer | Buffer | ExcelJS.Buffer): Promise<Buffer> {
+  const zip = await JSZip.loadAsync(xlsx as ArrayBuffer);
+  zip.forEach((_path, entry) => {
+    entry.date = FIXED_DATE;
+  });
+  return zip.generateAsync({ type: "nodebuffer", compression: "DEFLATE" });
 }
 
 if (require.main === module) {
