@@ -9,6 +9,7 @@ import { dirname, join } from "node:path";
 import type ExcelJS from "exceljs";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
+import { gravityLoadsPart } from "./demo-gravity-loads";
 import { takedownDemoPart } from "./takedown";
 
 /** What every demo part gets: where the package's files are and where to write. */
@@ -96,7 +97,7 @@ export const beamSchedulePart: DemoPart = {
 };
 
 /** The demo's parts, in order. */
-export const DEMO_PARTS: DemoPart[] = [beamSchedulePart, takedownDemoPart];
+export const DEMO_PARTS: DemoPart[] = [beamSchedulePart, gravityLoadsPart, takedownDemoPart];
 
 const demo: Command = {
   summary: "recalculate the sample workbooks and print their results",
