@@ -35,6 +35,7 @@ export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>
   recalc: () => import(/* webpackMode: "eager" */ "./commands/recalc"),
   demo: () => import(/* webpackMode: "eager" */ "./commands/demo"),
   takedown: () => import(/* webpackMode: "eager" */ "./commands/takedown"),
+  export: () => import(/* webpackMode: "eager" */ "./commands/export"),
 };
 
 /** The process's own streams. */
