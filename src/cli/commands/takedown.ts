@@ -20,6 +20,7 @@ import type { DemoPart } from "./demo";
 const USAGE = `Usage: loadpath takedown <in.xlsx> -o <out.xlsx> [--json <result.json>] [--units US|SI]
                          [--zones <name>] [--members <name>] [--loads <name>]
                          [--map <table>.<Column>=<your header> ...] [--sheet <name>] [--replace]
+                         [--native]
 
 Builds the gravity load takedown of the workbook's member tables: every member in takedown order
 with its loads, reactions, shear and moment, tributary area and live load reduction; every
@@ -36,6 +37,8 @@ a load balance. Everything is written as live formulas on a generated sheet (def
   --map          a column whose header differs, e.g. --map members.Trib="Trib width"
   --sheet        name of the generated sheet
   --replace      replace a same-named sheet the add-in did not create
+  --native       hand-off version: classic spreadsheet functions only, so the sheet recalculates
+                 without the add-in (Excel, LibreOffice Calc, Gnumeric); see also loadpath export
 
 Problems are listed on stderr as Sheet!A1: message. Exit status: 0 built without problems,
 1 problems found (what could be built is still written), 2 usage or file errors.
@@ -126,6 +129,8 @@ export interface TakedownRun {
   readonly mapping?: ColumnMapping;
   readonly sheet?: string;
   readonly replace?: boolean;
+  /** Hand-off version: classic spreadsheet functions only. */
+  readonly native?: boolean;
 }
 
 /** The result of a run, with the workbook and the port it was built in. */
@@ -158,6 +163,7 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
     ...(run.mapping ? { mapping: run.mapping } : {}),
     ...(run.sheet ? { sheetName: run.sheet } : {}),
     replaceForeign: run.replace === true,
+    ...(run.native ? { native: true } : {}),
   };
   const result = await buildTakedown(port, options);
   return { result, workbook, port };
@@ -193,6 +199,14 @@ export async function takedownFile(input: string, output: string | undefined, js
     for (const line of columnLines(result.json)) io.out(line);
     io.out("");
     for (const line of balanceLines(result.json)) io.out(line);
+    if (result.valueOnly !== undefined) {
+      io.out("");
+      if (result.valueOnly.length === 0) io.out("Hand-off version: every result is a live formula in classic spreadsheet functions (no member written as values).");
+      else {
+        io.out(`Hand-off version: ${result.valueOnly.length} member(s) written as values (not live):`);
+        for (const v of result.valueOnly) io.out(`  ${v.mark}: ${v.reason}`);
+      }
+    }
   } else {
     io.out("Nothing was built: the problems above stop the takedown.");
   }
@@ -227,6 +241,7 @@ const takedown: Command = {
           map: { type: "string", multiple: true },
           sheet: { type: "string" },
           replace: { type: "boolean" },
+          native: { type: "boolean" },
         },
         allowPositionals: true,
       });
@@ -258,6 +273,7 @@ const takedown: Command = {
       ...(v.loads !== undefined ? { loads: v.loads } : {}),
       ...(v.sheet !== undefined ? { sheet: v.sheet } : {}),
       replace: v.replace === true,
+      native: v.native === true,
     };
     try {
       return await takedownFile(input, v.output, v.json, run, io);

@@ -1,0 +1,95 @@
+/**
+ * The command line of the hand-off version: `loadpath takedown --native` and `loadpath export`
+ * on the sample workbooks, run through the dispatcher as a user runs them; what they print,
+ * their exit statuses, and that the files they write call no add-in function.
+ */
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { main, type CliIO } from "../../src/cli/main";
+import { readXlsx } from "../../src/workbook/xlsx";
+import { scratchDir } from "./programs";
+
+const scratch = scratchDir("loadpath-handoff-cli-");
+afterAll(() => scratch.remove());
+const SAMPLES = join(__dirname, "..", "..", "sample-workbooks");
+
+async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
+  const out: string[] = [];
+  const err: string[] = [];
+  const io: CliIO = { out: (l) => void out.push(l), err: (l) => void err.push(l) };
+  const code = await main(argv, io);
+  return { code, out: out.join("\n"), err: err.join("\n") };
+}
+
+async function addInCalls(path: string): Promise<string[]> {
+  const wb = await readXlsx(path);
+  return wb.formulas.filter((f) => /LOADPATH|_xldudf_/i.test(f.formula)).map((f) => `${f.sheet}!${f.col},${f.row}`);
+}
+
+describe("loadpath takedown --native", () => {
+  it("builds the SI sample with classic functions only and says no member is a value", async () => {
+    const out = join(scratch.dir, "si-native.xlsx");
+    const r = await run("takedown", join(SAMPLES, "timber-house-si.xlsx"), "-o", out, "--units", "SI", "--native");
+    expect(r.err).toBe("");
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Hand-off version: every result is a live formula/);
+    expect(await addInCalls(out)).toEqual([]);
+    const wb = await readXlsx(out);
+    expect(wb.sheets.map((s) => s.name)).toEqual(expect.arrayContaining(["Takedown", "Takedown extremes"]));
+  });
+
+  it("without --native the same build calls the add-in (the option is what changes it)", async () => {
+    const out = join(scratch.dir, "si-addin.xlsx");
+    const r = await run("takedown", join(SAMPLES, "timber-house-si.xlsx"), "-o", out, "--units", "SI");
+    expect(r.code).toBe(0);
+    expect(r.out).not.toMatch(/Hand-off version/);
+    expect((await addInCalls(out)).length).toBeGreaterThan(10);
+  });
+});
+
+describe("loadpath export", () => {
+  it("hands off the US sample (tables only in the file): prints what it rebuilt, no value-only cell, the notice and the caution", async () => {
+    const out = join(scratch.dir, "us-handoff.xlsx");
+    const r = await run("export", join(SAMPLES, "steel-office-us.xlsx"), "-o", out);
+    expect(r.err).toBe("");
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Hand-off workbook written to/);
+    expect(r.out).toMatch(/Takedown: \d+ members rebuilt with classic spreadsheet functions/);
+    expect(r.out).toMatch(/Written as values \(not live\): none/);
+    expect(r.out).toMatch(/Notice sheet: "Read me"/);
+    expect(r.out).toMatch(/qualified engineer/);
+    expect(await addInCalls(out)).toEqual([]);
+  });
+
+  it("lists every add-in result of the beam schedule as a value, by cell and mark", async () => {
+    const out = join(scratch.dir, "schedule-handoff.xlsx");
+    const input = join(SAMPLES, "beam-schedule.xlsx");
+    const calls = (await readXlsx(input)).formulas.filter((f) => /LOADPATH/i.test(f.formula)).length;
+    const r = await run("export", input, "-o", out);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/No takedown sheet/);
+    expect(r.out).toMatch(new RegExp(`Written as values \\(not live; recompute with the add-in after a change\\): ${calls} cell\\(s\\)`));
+    expect(r.out).toMatch(/Beams!\w+\d+ \([A-Z]+-\d+\)/);
+    expect(await addInCalls(out)).toEqual([]);
+  });
+
+  it("refuses bad usage with status 2: no output, the input as output, unknown units, half the table options", async () => {
+    const input = join(SAMPLES, "steel-office-us.xlsx");
+    expect((await run("export", input)).code).toBe(2);
+    expect((await run("export", input, "-o", input)).code).toBe(2);
+    expect((await run("export", input, "-o", join(scratch.dir, "x.xlsx"), "--units", "metric")).code).toBe(2);
+    const half = await run("export", input, "-o", join(scratch.dir, "y.xlsx"), "--zones", "Zones");
+    expect(half.code).toBe(2);
+    expect(half.err).toMatch(/both --zones and --members/);
+    expect((await run("export", join(scratch.dir, "missing.xlsx"), "-o", join(scratch.dir, "z.xlsx"))).code).toBe(2);
+  });
+
+  it("a takedown with problems writes nothing and exits 1", async () => {
+    const out = join(scratch.dir, "bad.xlsx");
+    const r = await run("export", join(SAMPLES, "steel-office-us.xlsx"), "-o", out, "--zones", "Zones", "--members", "Loads");
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/nothing written/);
+    const { existsSync } = await import("node:fs");
+    expect(existsSync(out)).toBe(false);
+  });
+});
