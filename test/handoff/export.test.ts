@@ -190,3 +190,49 @@ it("copies nothing over its input (the export writes only the named output)", as
   const b = await readXlsx(copy);
   expect(a.formulas).toEqual(b.formulas);
 });
+
+describe("loadpath export of a workbook without a takedown (the sample beam schedule)", () => {
+  const input = join(SAMPLES_DIR, "beam-schedule.xlsx");
+  let output: string;
+  let report: ExportReport;
+
+  beforeAll(async () => {
+    output = join(scratch.dir, "schedule.handoff.xlsx");
+    report = await exportHandoff(input, output, { date: "2026-01-15" });
+  });
+
+  it("turns every add-in result into its value, each with a note, and lists them", async () => {
+    const wb = await readXlsx(input);
+    const calls = wb.formulas.filter((f) => /LOADPATH/i.test(f.formula));
+    expect(report.ok).toBe(true);
+    expect(report.valueOnly.length).toBe(calls.length);
+    const excel = new ExcelJS.Workbook();
+    await excel.xlsx.readFile(output);
+    for (const v of report.valueOnly) {
+      const cell = excel.getWorksheet(v.sheet)!.getCell(v.address);
+      expect(cell.formula, `${v.sheet}!${v.address}`).toBeFalsy();
+      expect(String(cell.note ?? "")).toMatch(/not a live formula/);
+    }
+  });
+
+  it("the values are the add-in's results (the cached values of the input, which the add-in computed)", async () => {
+    const before = await readComputed(input);
+    const after = await readComputed(output);
+    const bad = report.valueOnly.filter((v) => {
+      const a = before.get(v.sheet)!.get(v.address);
+      const b = after.get(v.sheet)!.get(v.address);
+      return typeof a === "number" ? typeof b !== "number" || Math.abs(a - b) > 1e-9 * Math.max(1, Math.abs(a)) : a !== b;
+    });
+    expect(bad.map((v) => `${v.sheet}!${v.address}`)).toEqual([]);
+  });
+
+  it("opens cleanly and recalculates in Gnumeric without an error cell", async () => {
+    expect((await inspectXlsx(output)).problems).toEqual([]);
+    if (!gnumeric) return;
+    const recalculated = join(scratch.dir, "schedule.recalc.xlsx");
+    recalcWithGnumeric(output, recalculated);
+    const back = new ExcelJS.Workbook();
+    await back.xlsx.readFile(recalculated);
+    expect(errorCellsOf(back)).toEqual([]);
+  });
+});
