@@ -131,7 +131,7 @@ export class PaneSession {
    */
   async run(
     choice: TableChoice,
-    settings: Omit<PaneSettings, "tables">,
+    settings: Omit<PaneSettings, "tables"> & { readonly native?: boolean },
     onProgress: (fraction: number, message: string) => void,
     replaceForeign = false,
   ): Promise<RunOutcome> {
@@ -151,6 +151,8 @@ export class PaneSession {
         mapping: settings.mapping,
         sheetName: this.sheetName,
         replaceForeign,
+        // hand-off version: classic spreadsheet functions only (src/engine/native)
+        ...(settings.native ? { native: true } : {}),
       },
       breathingProgress(onProgress),
     );

@@ -2,6 +2,7 @@
 import * as React from "react";
 import {
   Button,
+  Checkbox,
   Dialog,
   DialogActions,
   DialogBody,
@@ -82,6 +83,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
   const [choice, setChoice] = React.useState<TableChoice>(NO_CHOICE);
   const [mapping, setMapping] = React.useState<ColumnMapping>({});
   const [units, setUnits] = React.useState<UnitSystem>("US");
+  const [native, setNative] = React.useState(false);
   const [progress, setProgress] = React.useState<Progress | null>(null);
   const [result, setResult] = React.useState<TakedownBuildResult | null>(null);
   const [resultUnits, setResultUnits] = React.useState<UnitSystem>("US");
@@ -129,7 +131,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     setSelected("");
     setProgress({ fraction: 0, message: "Reading the tables…" });
     try {
-      const outcome = await session.run(choice, { mapping, units }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
+      const outcome = await session.run(choice, { mapping, units, native }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
       if (outcome.kind === "askReplace") setAskReplace(outcome.sheet);
       else {
         setResult(outcome.result);
@@ -198,6 +200,13 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                   Writes only the sheet “{session.sheetName}”.
                 </Text>
               </div>
+              <Checkbox
+                checked={native}
+                disabled={busy}
+                onChange={(_, data) => setNative(data.checked === true)}
+                label="Hand-off version: classic spreadsheet functions only, so the sheet recalculates without the add-in (for a checker or another office)"
+                data-testid="native"
+              />
               {!ready && scan ? (
                 <Text size={200} role="note">
                   {lacking.length > 0 ? `Match these columns first: ${lacking.join("; ")}.` : "Pick the load zones and members tables first."}
@@ -227,6 +236,13 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                   </>
                 ) : null}
                 {result.summary ? <SummaryView summary={result.summary} units={resultUnits} sheet={result.sheet} /> : null}
+                {result.valueOnly ? (
+                  <Text size={200} role="note" data-testid="handoff">
+                    {result.valueOnly.length === 0
+                      ? "Hand-off version: every result is a live formula in classic spreadsheet functions."
+                      : `Hand-off version: written as values (not live): ${result.valueOnly.map((v) => `${v.mark} (${v.reason})`).join("; ")}.`}
+                  </Text>
+                ) : null}
               </section>
             ) : null}
           </>
