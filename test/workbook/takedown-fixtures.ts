@@ -32,11 +32,24 @@ export function frameMemberCount(size: FrameSize): number {
   return size.levels * perLevel + (n + 1) * (n + 1);
 }
 
-/** The smallest regular frame (10 levels, 3 beams per bay) with at least `members` members. */
-export function frameOfSize(members: number, levels = 10): FrameSize {
-  let bays = 1;
-  while (frameMemberCount({ levels, bays, beamsPerBay: 3 }) < members) bays++;
-  return { levels, bays, beamsPerBay: 3 };
+/**
+ * A regular frame (3 beams per bay, 5 to 20 levels) with at least `members` members and as few
+ * more as the grid allows.
+ */
+export function frameOfSize(members: number): FrameSize {
+  let best: FrameSize = { levels: 5, bays: 1, beamsPerBay: 3 };
+  let bestCount = Number.POSITIVE_INFINITY;
+  for (let bays = 1; bays <= 200; bays++) {
+    for (let levels = 5; levels <= 20; levels++) {
+      const size = { levels, bays, beamsPerBay: 3 };
+      const count = frameMemberCount(size);
+      if (count >= members && count < bestCount) {
+        best = size;
+        bestCount = count;
+      }
+    }
+  }
+  return best;
 }
 
 /**

@@ -1,8 +1,15 @@
 /** A1-style addresses for the takedown engine (0-based rows and columns in, Excel text out). */
 import type { CellRef } from "./types";
 
+/** Letters of the first columns, worked out once (the plan asks for them millions of times). */
+const LETTERS: string[] = Array.from({ length: 702 }, (_, c) => lettersOf(c));
+
 /** 0 -> "A", 25 -> "Z", 26 -> "AA". */
 export function columnLetter(col: number): string {
+  return LETTERS[col] ?? lettersOf(col);
+}
+
+function lettersOf(col: number): string {
   let n = col + 1;
   let s = "";
   while (n > 0) {

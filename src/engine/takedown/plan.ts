@@ -237,22 +237,33 @@ function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, firs
   return [...live].sort((a, b) => a - b);
 }
 
-/** References of channel i's loads over rows top..top+n-1. */
+/** References of channel i's loads over rows top..top+n-1 (the ranges a hand-off writer needs are made on demand). */
 function channelRefs(ctx: Context, i: number, top: number, n: number, uniform: boolean): ChannelRefs {
   const b = ctx.layout.block[i]!;
   const range = (c0: number, c1: number): string => `${a1(top, c0)}:${a1(top + n - 1, c1)}`;
   return {
     loads: uniform ? a1(top, b + 1) : range(b, b + 3),
-    magnitude: range(b + 1, b + 1),
-    kind: range(COL.kind, COL.kind),
-    from: range(COL.from, COL.from),
-    loaded: range(COL.loaded, COL.loaded),
+    get magnitude() {
+      return range(b + 1, b + 1);
+    },
+    get kind() {
+      return range(COL.kind, COL.kind);
+    },
+    get from() {
+      return range(COL.from, COL.from);
+    },
+    get loaded() {
+      return range(COL.loaded, COL.loaded);
+    },
   };
 }
 
-/** The KLL cell formula: the Members KLL cell when filled, else the Table 4.7-2 default. */
-function kllFormula(ctx: Context, m: Member, element: string): string {
-  const fallback = ctx.writer.kllDefault(element);
+/** Row and columns of the K_LL defaults in the sheet's header (one LOADPATH.KLL call each). */
+const KLL_DEFAULTS = { row: 4, flexural: 2, column: 4 } as const;
+
+/** The KLL cell formula: the Members KLL cell when filled, else the Table 4.7-2 default in the header. */
+function kllFormula(m: Member, kind: "flexural" | "column"): string {
+  const fallback = a1Absolute(KLL_DEFAULTS.row, KLL_DEFAULTS[kind]);
   if (m.kll === null) return fallback;
   const cell = sheetCellRef(m.kll.cell);
   return `IF(${cell}="",${fallback},${cell})`;
@@ -301,7 +312,7 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   const at = ch(ctx, "AT");
   if (at !== undefined) {
     grid.set(row, layout.areaT, live.includes(at) ? f(`${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)}`) : 0);
-    grid.set(row, layout.kll, f(kllFormula(ctx, m, DEFAULT_ELEMENT.flexural)));
+    grid.set(row, layout.kll, f(kllFormula(m, "flexural")));
     grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
   }
   return { member: m.index, row, rows: n, live };
@@ -357,7 +368,7 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
     const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
     grid.set(row, layout.areaT, f(totalOf("AT")));
     grid.set(row, layout.floors, f(here + floorsAbove));
-    grid.set(row, layout.kll, f(kllFormula(ctx, m, DEFAULT_ELEMENT.column)));
+    grid.set(row, layout.kll, f(kllFormula(m, "column")));
     grid.set(row, layout.kllAt, f(`${a1(row, layout.kll)}*${a1(row, layout.areaT)}`));
     grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)));
     const llr = a1(row, layout.llr);
@@ -398,6 +409,13 @@ function writeHeader(ctx: Context, title: string): { appliedRow: number; support
     `Units ${ctx.model.units}: lengths ${u.length}, line loads ${u.line}, forces ${u.force}, moments ${u.moment}, areas ${u.area} (${conv}). Gravity loads down +, reactions up +, sagging moment +. Positions are measured from each member's start end.`,
   );
   grid.set(3, 0, `Members in takedown order: each after every member it carries. Formulas by ${ctx.writer.name}. Rebuilt in place by the next takedown; edits here are lost.`);
+  if (ctx.channelIndex.has("AT")) {
+    grid.set(KLL_DEFAULTS.row, 0, "K_LL where the KLL cell is blank (ASCE/SEI 7-22 Table 4.7-2):");
+    grid.set(KLL_DEFAULTS.row, KLL_DEFAULTS.flexural - 1, `beams: ${DEFAULT_ELEMENT.flexural}`);
+    grid.set(KLL_DEFAULTS.row, KLL_DEFAULTS.flexural, f(ctx.writer.kllDefault(DEFAULT_ELEMENT.flexural)));
+    grid.set(KLL_DEFAULTS.row, KLL_DEFAULTS.column - 1, `columns: ${DEFAULT_ELEMENT.column}`);
+    grid.set(KLL_DEFAULTS.row, KLL_DEFAULTS.column, f(ctx.writer.kllDefault(DEFAULT_ELEMENT.column)));
+  }
   const top = 5;
   grid.set(top, 0, `Load balance (${u.force})`);
   grid.set(top + 1, 0, "Applied");
