@@ -139,13 +139,12 @@ export function takedownsOf(wb: XlsxWorkbook, units?: UnitSystem): TakedownSpec[
   return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units: units ?? unitsOfTables(wb, [zones, members]), sheetName: sheet } }];
 }
 
-/** Why a LOADPATH formula has no classic-function form in the hand-off version. */
+/** Why a LOADPATH formula outside a takedown sheet is written as its value in the hand-off file. */
 export function valueOnlyReason(formula: string): string {
-  const f = formula.toUpperCase();
-  if (/DEFLECTION_|REQUIRED_I/.test(f)) return "deflection needs the member's elastic curve (EI), solved by the add-in";
-  if (/DIAGRAM|REACTIONS\s*\(|COMBOS\s*\(/.test(f)) return "a spilled list computed by the add-in";
-  if (/REACTION|SHEAR|MOMENT/.test(f)) return "member analysis by the add-in (supports of any kind, e.g. a continuous or fixed member); not rebuilt as classic formulas";
-  return "add-in function with no classic-function form in the hand-off version";
+  const name = /(?:LOADPATH\.|_xldudf_LOADPATH_)([A-Za-z0-9_]+)\s*\(/i.exec(formula)?.[1]?.toUpperCase() ?? "an add-in function";
+  if (/^(DEFLECTION_|REQUIRED_I)/.test(name)) return `${name}: a deflection needs the member's elastic curve (EI), solved by the add-in`;
+  if (/^(DIAGRAM|REACTIONS|COMBOS)$/.test(name)) return `${name}: a spilled list computed by the add-in`;
+  return `${name} on your own sheet: the hand-off version rebuilds takedown sheets in classic functions, other add-in formulas keep their values`;
 }
 
 /** Text in column A of a cell's row (the mark of a schedule row), if any. */
