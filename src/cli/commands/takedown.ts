@@ -10,12 +10,15 @@ import { writeFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { parseArgs } from "node:util";
 import { sheetRef } from "../../workbook/a1";
-import { exportSheets, MemoryWorkbookPort } from "../../workbook/memory-port";
-import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
-import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
-import type { ColumnMapping, Problem, TakedownBuildResult, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
+import { exportSheets } from "../../workbook/memory-port";
+import { DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
+import { cacheResults, writeXlsx } from "../../workbook/xlsx";
+import type { Problem, TakedownBuildResult, TakedownJson, UnitSystem } from "../../workbook/takedown-api";
 import { EXIT, type CliIO, type Command } from "../main";
+import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
+
+export { parseMappings, takedownOfFile, type TakedownFileResult, type TakedownRun } from "../takedown-input";
 
 const USAGE = `Usage: loadpath takedown <in.xlsx> -o <out.xlsx> [--json <result.json>] [--units US|SI]
                          [--zones <name>] [--members <name>] [--loads <name>]
@@ -47,30 +50,6 @@ Results need review by a qualified engineer; local codes govern.`;
 /** One stderr line per problem: `Sheet!A1: message`. */
 export function describeTakedownProblem(p: Problem): string {
   return `${sheetRef(p.sheet)}!${p.cell}: ${p.message}`;
-}
-
-/**
- * Parse `--map` entries: `members.Trib=Trib width` -> { members: { Trib: "Trib width" } }.
- * @param entries - the option's values
- * @returns the mapping, or an error message naming the bad entry
- */
-export function parseMappings(entries: readonly string[]): { mapping: ColumnMapping } | { error: string } {
-  const out: Record<"zones" | "members" | "loads", Record<string, string>> = { zones: {}, members: {}, loads: {} };
-  for (const e of entries) {
-    const m = /^\s*(zones|members|loads)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
-    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header>, table zones, members or loads (e.g. members.Trib="Trib width").` };
-    out[m[1]!.toLowerCase() as "zones" | "members" | "loads"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
-  }
-  return { mapping: out };
-}
-
-/** A name given, or the table/sheet named `fallback` when the workbook has one. */
-function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string): string | undefined {
-  if (given !== undefined) return given;
-  const key = fallback.toLowerCase();
-  const table = wb.tables.find((t) => t.name.toLowerCase() === key);
-  if (table) return table.name;
-  return wb.sheets.find((s) => s.name.toLowerCase() === key)?.name;
 }
 
 function fmt(x: number | undefined, digits = 1): string {
@@ -118,55 +97,6 @@ export function balanceLines(json: TakedownJson): string[] {
     lines.push(`${c.padEnd(5)} ${fmt(b.applied, 3).padStart(14)} ${fmt(b.supports, 3).padStart(15)} ${(b.applied - b.supports).toExponential(1).padStart(12)}`);
   }
   return lines;
-}
-
-/** What a takedown run needs besides the files. */
-export interface TakedownRun {
-  readonly units: UnitSystem;
-  readonly zones?: string;
-  readonly members?: string;
-  readonly loads?: string;
-  readonly mapping?: ColumnMapping;
-  readonly sheet?: string;
-  readonly replace?: boolean;
-  /** Hand-off version: classic spreadsheet functions only. */
-  readonly native?: boolean;
-}
-
-/** The result of a run, with the workbook and the port it was built in. */
-export interface TakedownFileResult {
-  readonly result: TakedownBuildResult;
-  readonly workbook: XlsxWorkbook;
-  readonly port: MemoryWorkbookPort;
-}
-
-/**
- * Build the takedown of an .xlsx file in memory (nothing written).
- * @param input - path of the workbook
- * @param run - unit system, table names, mapping
- * @throws Error when the file cannot be read, or a table name is missing and no default exists
- */
-export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
-  const workbook = await readXlsx(input);
-  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })) });
-  const zones = tableName(workbook, run.zones, "Zones");
-  const members = tableName(workbook, run.members, "Members");
-  if (zones === undefined || members === undefined) {
-    throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
-  }
-  const loads = tableName(workbook, run.loads, "Loads");
-  const options: TakedownOptions = {
-    zones,
-    members,
-    ...(loads !== undefined ? { loads } : {}),
-    units: run.units,
-    ...(run.mapping ? { mapping: run.mapping } : {}),
-    ...(run.sheet ? { sheetName: run.sheet } : {}),
-    replaceForeign: run.replace === true,
-    ...(run.native ? { native: true } : {}),
-  };
-  const result = await buildTakedown(port, options);
-  return { result, workbook, port };
 }
 
 /** The JSON written even when nothing could be built (the problems are in it). */
@@ -234,11 +164,7 @@ const takedown: Command = {
         options: {
           output: { type: "string", short: "o" },
           json: { type: "string" },
-          units: { type: "string" },
-          zones: { type: "string" },
-          members: { type: "string" },
-          loads: { type: "string" },
-          map: { type: "string", multiple: true },
+          ...tableOptions(),
           sheet: { type: "string" },
           replace: { type: "boolean" },
           native: { type: "boolean" },
@@ -254,23 +180,14 @@ const takedown: Command = {
       io.err(input === undefined ? `loadpath takedown: no input workbook given.\n\n${USAGE}` : `loadpath takedown: one input workbook at a time (got ${parsed.positionals.length}).`);
       return EXIT.usage;
     }
-    const unitsText = (parsed.values.units ?? "US").toUpperCase();
-    if (unitsText !== "US" && unitsText !== "SI") {
-      io.err(`loadpath takedown: --units is US or SI (got "${parsed.values.units}").`);
-      return EXIT.usage;
-    }
-    const maps = parseMappings(parsed.values.map ?? []);
-    if ("error" in maps) {
-      io.err(`loadpath takedown: ${maps.error}`);
+    const checked = runOfOptions(parsed.values);
+    if ("error" in checked) {
+      io.err(`loadpath takedown: ${checked.error}`);
       return EXIT.usage;
     }
     const v = parsed.values;
     const run: TakedownRun = {
-      units: unitsText,
-      mapping: maps.mapping,
-      ...(v.zones !== undefined ? { zones: v.zones } : {}),
-      ...(v.members !== undefined ? { members: v.members } : {}),
-      ...(v.loads !== undefined ? { loads: v.loads } : {}),
+      ...checked.run,
       ...(v.sheet !== undefined ? { sheet: v.sheet } : {}),
       replace: v.replace === true,
       native: v.native === true,
