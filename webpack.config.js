@@ -119,6 +119,11 @@ module.exports = async (env, argv) => {
     module: { rules: [tsRule] },
     performance: { hints: false },
     plugins: [
+      // The memory port builds engines through headless.ts, which reads dist/ from disk; in the page
+      // the stand-in builds them from the bundle the page registered.
+      new webpack.NormalModuleReplacementPlugin(/^\.\/headless$/, (resource) => {
+        if (/src[\\/]workbook$/.test(resource.context)) resource.request = path.resolve(__dirname, "src/taskpane-demo/headless-browser.ts");
+      }),
       new webpack.NormalModuleReplacementPlugin(/^node:/, (resource) => {
         resource.request = resource.request.replace(/^node:/, "");
       }),

@@ -34,7 +34,7 @@ async function start(): Promise<void> {
   try {
     const variant = new URLSearchParams(location.search).get("sample") === "mistakes" ? "mistakes" : "building";
     const [bundle, sample] = await Promise.all([registerFunctionsInPage(), loadSample(`samples/${SAMPLE_FILE}`)]);
-    const port = openSample(variant === "mistakes" ? withMistakes(sample) : sample, bundle);
+    const port = await openSample(variant === "mistakes" ? withMistakes(sample) : sample, bundle);
     const stored = withStoredSettings(port, window.localStorage, `loadpath-demo:${variant}:`);
     root.before(selected);
     mountPane(root, { port: showingSelection(stored, selected), build: buildTakedown, connected: false });

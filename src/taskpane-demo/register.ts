@@ -8,6 +8,7 @@
  */
 import { createCustomFunctionsShim } from "../workbook/headless-shim";
 import { bundleMismatches, registerBundle, type FunctionMetadata, type LoadedBundle } from "../workbook/headless-plugin";
+import { usePageBundle } from "./headless-browser";
 
 /** Run a same-origin script and wait for it. */
 function runScript(src: string): Promise<void> {
@@ -39,6 +40,7 @@ export function registerFunctionsInPage(base = ""): Promise<LoadedBundle> {
     if (problems.length > 0) throw new Error(`The functions bundle does not match its metadata: ${problems.join(" ")}`);
     const bundle: LoadedBundle = { distDir: base || "(page)", metadata, functions: shim.associated };
     registerBundle(bundle);
+    usePageBundle(bundle);
     return bundle;
   })();
   return loaded;

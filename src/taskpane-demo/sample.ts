@@ -2,15 +2,12 @@
  * The demo page's workbook: the sample JSON loaded into HyperFormula (with the LOADPATH functions
  * registered from the built bundle by register.ts) behind the in-memory workbook port.
  */
-import { HyperFormula, type RawCellContent } from "hyperformula";
-import { defineBooleans, NAMESPACE, toEngineContent, type LoadedBundle } from "../workbook/headless-plugin";
-import { MemoryWorkbookPort, SHEET_LIMITS } from "../workbook/memory-port";
+import type { RawCellContent } from "hyperformula";
+import type { LoadedBundle } from "../workbook/headless-plugin";
+import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { mistakesOf, type SampleJson } from "./sample-data";
 
 export { SAMPLE_FILE } from "./sample-data";
-
-/** The headless engine configuration (HyperFormula under GPL-3.0). */
-const CONFIG = { licenseKey: "gpl-v3", language: "enGB", ...SHEET_LIMITS } as const;
 
 /** Fetch the sample workbook made at build time. */
 export async function loadSample(url: string): Promise<SampleJson> {
@@ -25,14 +22,12 @@ export function withMistakes(sample: SampleJson): SampleJson {
 }
 
 /**
- * The sample as an in-memory workbook behind the port.
- * @param bundle - the functions bundle registered in this page.
+ * The sample as an in-memory workbook behind the port (engines come from the page's registered
+ * bundle: headless-browser.ts stands in for headless.ts in this page's build).
+ * @param _bundle - the functions bundle registered in this page (registration must come first).
  */
-export function openSample(sample: SampleJson, bundle: LoadedBundle): MemoryWorkbookPort {
+export async function openSample(sample: SampleJson, _bundle: LoadedBundle): Promise<MemoryWorkbookPort> {
   const sheets: Record<string, RawCellContent[][]> = {};
-  for (const s of sample.sheets) sheets[s.name] = s.rows.map((r) => r.map((c) => toEngineContent(c)));
-  const hf = HyperFormula.buildFromSheets(sheets, CONFIG);
-  defineBooleans(hf);
-  const functionIds = bundle.metadata.map((f) => `${NAMESPACE}.${f.id.toUpperCase()}`);
-  return new MemoryWorkbookPort({ hf, bundle, functionIds }, sample.tables);
+  for (const s of sample.sheets) sheets[s.name] = s.rows.map((r) => [...r]);
+  return MemoryWorkbookPort.create({ sheets, tables: sample.tables });
 }

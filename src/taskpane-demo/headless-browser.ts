@@ -1,0 +1,31 @@
+/**
+ * The browser stand-in for src/workbook/headless.ts on the demo page (webpack.config.js swaps it
+ * in for the memory port's import): the same exports, but engines are built from the bundle the
+ * page registered (register.ts) instead of reading dist/ from disk, which a page cannot do.
+ */
+import { HyperFormula, type ConfigParams } from "hyperformula";
+import { defineBooleans, NAMESPACE, toEngineContent, type LoadedBundle } from "../workbook/headless-plugin";
+import type { Headless, HeadlessOptions } from "../workbook/headless";
+
+export * from "../workbook/headless-plugin";
+export type { Headless, HeadlessOptions } from "../workbook/headless";
+
+/** The engine configuration used everywhere headless (HyperFormula under GPL-3.0). */
+export const HEADLESS_CONFIG: Partial<ConfigParams> = { licenseKey: "gpl-v3", language: "enGB" };
+
+let pageBundle: LoadedBundle | null = null;
+
+/** Record the bundle registered in this page (register.ts calls it). */
+export function usePageBundle(bundle: LoadedBundle): void {
+  pageBundle = bundle;
+}
+
+/** A HyperFormula instance with the page's LOADPATH functions (the distDir option is ignored). */
+export async function createHeadless(options: HeadlessOptions = {}): Promise<Headless> {
+  if (!pageBundle) throw new Error("The LOADPATH functions are not registered in this page yet.");
+  const sheets = Object.fromEntries(Object.entries(options.sheets ?? {}).map(([name, rows]) => [name, rows.map((r) => r.map(toEngineContent))]));
+  const config = { ...HEADLESS_CONFIG, ...options.config };
+  const hf = Object.keys(sheets).length > 0 ? HyperFormula.buildFromSheets(sheets, config) : HyperFormula.buildEmpty(config);
+  defineBooleans(hf);
+  return { hf, bundle: pageBundle, functionIds: pageBundle.metadata.map((f) => `${NAMESPACE}.${f.id.toUpperCase()}`) };
+}
