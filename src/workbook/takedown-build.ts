@@ -101,6 +101,21 @@ async function writePlan(port: WorkbookPort, plan: SheetPlan, progress: Progress
  * member row, in blocks of rows.
  */
 async function readBack(port: WorkbookPort, plan: SheetPlan, progress: Progress | undefined): Promise<CellReader> {
+  // A host that calculates add-in functions asynchronously (Excel) shows #BUSY! until they finish.
+  for (let attempt = 0; ; attempt++) {
+    const chunks = await readChunks(port, plan, progress);
+    const busy = chunks.some((c) => c.values.some((r) => r.some((v) => v === BUSY)));
+    if (!busy || attempt >= BUSY_RETRIES) return readerOf(chunks);
+    await new Promise((resolve) => setTimeout(resolve, BUSY_WAIT_MS));
+  }
+}
+
+/** The value a host shows while an add-in function is still calculating. */
+const BUSY = "#BUSY!";
+const BUSY_RETRIES = 40;
+const BUSY_WAIT_MS = 250;
+
+async function readChunks(port: WorkbookPort, plan: SheetPlan, progress: Progress | undefined): Promise<RangeData[]> {
   const sheet = sheetRef(plan.sheet);
   const chunks: RangeData[] = [];
   const balanceCols = Math.max(1, plan.balance.caseCols.length);
@@ -113,6 +128,11 @@ async function readBack(port: WorkbookPort, plan: SheetPlan, progress: Progress 
     chunks.push(await port.readTable(`${sheet}!${cellAddress(from, left)}:${cellAddress(to, plan.layout.width - 1)}`));
     await report(progress, 0.85 + (0.1 * (to - first + 1)) / Math.max(1, last - first + 1), "Reading the results");
   }
+  return chunks;
+}
+
+/** A cell reader over blocks read back. */
+function readerOf(chunks: readonly RangeData[]): CellReader {
   return (row, col): CellValue | undefined => {
     for (const c of chunks) {
       const r = row - c.top;
