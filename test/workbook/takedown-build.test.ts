@@ -328,3 +328,53 @@ describe("a column stack over three floors: live load reduction limits", () => {
     close(Math.max(...Object.values(result.json!.columns["C-1"]!.combos)), 1.2 * 3 * perFloor.D + 1.6 * 0.4 * 3 * perFloor.L);
   });
 });
+
+describe("a column on a transfer girder, and Loads-table line and point loads", () => {
+  /**
+   * Roof beam RB (span 20 ft, trib 10 ft of a 50 psf zone, plus a 400 plf partial dead load from
+   * 5 to 15 ft) spans from column CT to wall W3. CT (level 2) carries a 2,000 lb point load of its
+   * own and bears on transfer girder TG (level 1, span 30 ft between walls W1 and W2) at 10 ft.
+   */
+  const sheets: Record<string, RawCellContent[][]> = {
+    Zones: [
+      ["Zone", "D (psf)"],
+      ["Z", 50],
+    ],
+    Members: [
+      MEMBER_HEADERS,
+      ["RB", "beam", "2", 20, "Z", 10, "CT", null, "W3", null, null],
+      ["CT", "column", "2", 10, null, null, "TG", 10, null, null, null],
+      ["TG", "girder", "1", 30, null, null, "W1", null, "W2", null, null],
+      ["W1", "wall", "1", null, null, null, null, null, null, null, null],
+      ["W2", "wall", "1", null, null, null, null, null, null, null, null],
+      ["W3", "wall", "2", null, null, null, null, null, null, null, null],
+    ],
+    Loads: [
+      ["Mark", "Kind", "Zone or case", "Magnitude (plf or lb)", "Width (ft)", "From (ft)", "To (ft)"],
+      ["RB", "line", "D", 400, null, 5, 15],
+      ["CT", "point", "D", 2000, null, null, null],
+    ],
+  };
+
+  it("hands the column's total to the girder as a point load at its Start at", async () => {
+    const { result } = await buildOn(sheets);
+    expect(result.problems).toEqual([]);
+    expect(result.summary!.levels).toEqual(["2", "1"]);
+    // RB: 0.5 kip/ft over 20 ft and 0.4 kip/ft from 5 to 15 ft (lb/1000 = kip, plf/1000 = kip/ft).
+    const rb = handReactions(20, [], [
+      { w: 0.5, a: 0, b: 20 },
+      { w: 0.4, a: 5, b: 15 },
+    ]);
+    close(result.json!.members.RB!.reactions.D![0], rb.left);
+    const ct = rb.left + 2;
+    close(result.json!.columns.CT!.cumulative.D, ct);
+    const tg = handReactions(30, [{ p: ct, x: 10 }]);
+    close(result.json!.members.TG!.reactions.D![0], tg.left);
+    close(result.json!.members.TG!.reactions.D![1], tg.right);
+    close(result.json!.members.TG!.momentMax.D, tg.left * 10);
+    close(result.json!.foundations.W3!.D!, rb.right);
+    const applied = 0.5 * 20 + 0.4 * 10 + 2;
+    close(result.json!.balance.D!.applied, applied);
+    close(result.json!.balance.D!.supports, applied, 1e-9);
+  });
+});
