@@ -11,8 +11,9 @@
 import type ExcelJS from "exceljs";
 import { DetailedCellError, type RawCellContent, type SimpleCellAddress } from "hyperformula";
 import { cellAddress, parseCell } from "./a1";
-import { createHeadless, excelErrorText, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
-import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type TableInfo, type WorkbookPort } from "./port";
+import { HyperFormula } from "hyperformula";
+import { createHeadless, defaultDistDir, defineBooleans, excelErrorText, HEADLESS_CONFIG, NAMESPACE, registerLoadpathFunctions, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
+import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellSelection, type CellValue, type RangeData, type TableInfo, type WorkbookPort } from "./port";
 
 /** An Excel table of the workbook: name, sheet and extent including the header row ("A1:H20"). */
 export interface MemoryTable {
@@ -70,6 +71,9 @@ export class MemoryWorkbookPort implements WorkbookPort {
   private readonly names = new Map<string, string>();
   /** Last selection made through the port ("Sheet!A1"). */
   selection: string | null = null;
+  /** The active cell (moved by select() and setActiveCell()), and who is told when it moves. */
+  private active: CellSelection | null = null;
+  private readonly selectionHandlers = new Set<(selection: CellSelection) => void>();
 
   private current: Headless;
 
@@ -219,6 +223,35 @@ export class MemoryWorkbookPort implements WorkbookPort {
 
   async select(sheet: string, address: string): Promise<void> {
     this.selection = `${sheet}!${address}`;
+    this.setActiveCell(sheet, address);
+  }
+
+  /** The in-memory workbook always reports selection changes (made by setActiveCell or select). */
+  followsSelection(): boolean {
+    return true;
+  }
+
+  async onSelectionChanged(handler: (selection: CellSelection) => void): Promise<() => void> {
+    this.selectionHandlers.add(handler);
+    return () => {
+      this.selectionHandlers.delete(handler);
+    };
+  }
+
+  async activeCell(): Promise<CellSelection | null> {
+    return this.active;
+  }
+
+  /**
+   * Move the active cell as a user clicking a cell would (there is no grid: the demo page and
+   * tests stand in for Excel's selection), and tell every selection handler.
+   * @param sheet - sheet name
+   * @param address - A1 address; a range ("B3:D5") makes its top-left cell active
+   */
+  setActiveCell(sheet: string, address: string): void {
+    const first = address.replace(/\$/g, "").split(":")[0]!.trim().toUpperCase();
+    this.active = { sheet, address: first };
+    for (const h of [...this.selectionHandlers]) h(this.active);
   }
 
   async getSetting(key: string): Promise<string | null> {
@@ -245,7 +278,7 @@ export class MemoryWorkbookPort implements WorkbookPort {
         if (blocks && !fresh.includes(name)) overlay(sheets[name]!, blocks);
       }
       const names = this.hf.getAllNamedExpressionsSerialized().filter((n) => n.scope === undefined && !["TRUE", "FALSE"].includes(n.name.toUpperCase()));
-      this.current = await createHeadless({ ...this.options, sheets });
+      this.current = this.rebuild(sheets);
       for (const n of names) this.hf.addNamedExpression(n.name, n.expression as string);
     } else {
       this.hf.batch(() => {
@@ -256,6 +289,17 @@ export class MemoryWorkbookPort implements WorkbookPort {
       });
     }
     this.queued.clear();
+  }
+
+  /**
+   * A new engine over sheets whose formulas are already in the engine's spelling (what the port
+   * holds and writes): no per-formula translation, unlike reading a file.
+   */
+  private rebuild(sheets: Record<string, RawCellContent[][]>): Headless {
+    const bundle = registerLoadpathFunctions(this.options.distDir ?? defaultDistDir());
+    const hf = HyperFormula.buildFromSheets(sheets, { ...HEADLESS_CONFIG, ...this.options.config });
+    defineBooleans(hf);
+    return { hf, bundle, functionIds: bundle.metadata.map((f) => `${NAMESPACE}.${f.id.toUpperCase()}`) };
   }
 
   /** Sheets the port created or rebuilt, in the order first prepared. */
