@@ -105,8 +105,13 @@ describe("takedown of a small framing (hand statics)", () => {
       close(m[mark]!.momentMax.L, (hand.bL[i]! * 30) / 4);
       close(m[mark]!.tributaryArea, 2 * hand.bA[i]!);
     });
-    close(m.E1!.reactions.D![0], hand.e1.D);
-    close(m.E2!.reactions.L![1], hand.e2.L);
+    for (const [mark, e] of [["E1", hand.e1], ["E2", hand.e2]] as const) {
+      for (const end of [0, 1]) {
+        close(m[mark]!.reactions.D![end], e.D);
+        close(m[mark]!.reactions.L![end], e.L);
+      }
+      close(m[mark]!.tributaryArea, 2 * e.A);
+    }
   });
 
   it("girders: beam reactions arrive at their Start at positions; reactions by moments, moment at a load point", () => {
