@@ -36,6 +36,7 @@ export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>
   demo: () => import(/* webpackMode: "eager" */ "./commands/demo"),
   takedown: () => import(/* webpackMode: "eager" */ "./commands/takedown"),
   export: () => import(/* webpackMode: "eager" */ "./commands/export"),
+  report: () => import(/* webpackMode: "eager" */ "./commands/report"),
 };
 
 /** The process's own streams. */

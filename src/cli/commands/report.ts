@@ -1,0 +1,216 @@
+/**
+ * `loadpath report <in.xlsx> -o report.html [--members B-12,G-3 | --all] [--units US|SI] ...`:
+ * the printable calculation report of the takedown. Builds the takedown headless (the same build
+ * as `loadpath takedown`), reads every member's loads and results back from the computed sheet,
+ * and writes one self-contained HTML file (no scripts, nothing loaded) that prints cleanly to PDF
+ * from a browser. The input file is never written.
+ */
+import { writeFileSync } from "node:fs";
+import { basename, extname, join, resolve } from "node:path";
+import { parseArgs } from "node:util";
+import type ExcelJS from "exceljs";
+import { isFlexural } from "../../engine/takedown/model";
+import { collectTakedown, renderReport, type TakedownRecord } from "../../report";
+import type { XlsxWorkbook } from "../../workbook/xlsx";
+import { EXIT, type CliIO, type Command } from "../main";
+import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
+import type { DemoPart } from "./demo";
+import { describeTakedownProblem } from "./takedown";
+
+/** The option naming the Members table (`--members` chooses the members of the report). */
+const MEMBERS_TABLE_OPTION = "members-table";
+
+const USAGE = `Usage: loadpath report <in.xlsx> -o <report.html> [--members <mark,mark,...> | --all]
+                       [--units US|SI] [--zones <name>] [--members-table <name>] [--loads <name>]
+                       [--map <table>.<Column>=<your header> ...] [--project <name>] [--date <text>]
+
+Writes a printable calculation report of the workbook's load takedown: a title block (project,
+engineer, date, units, code editions), the assumptions, a section for each chosen member (its
+loads and where each comes from, reactions, shear and moment per load case and for the
+governing factored combination with the source of each formula, live load reduction, free-body,
+shear and moment diagrams and its load path), the column schedule with cumulative loads and
+live load reduction, the foundation reactions and the load balance. One HTML file with no
+scripts and nothing to load; print it to PDF from a browser.
+
+  -o, --output     HTML file to write (never the input file)
+  --members        marks of the members to detail, separated by commas (repeatable)
+  --all            every beam, girder, joist and column (the default)
+  --units          US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default US
+  --zones, --members-table, --loads
+                   Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
+                   default: the table or sheet named Zones, Members and (if present) Loads
+  --map            a column whose header differs, e.g. --map members.Trib="Trib width"
+  --project        project name (default: the workbook's title, its defined name Project,
+                   else the file name)
+  --date           date printed in the title block (default: today)
+
+Problems are listed on stderr as Sheet!A1: message and in the report. Exit status: 0 written
+without problems, 1 problems found (the report of what could be built is still written),
+2 usage or file errors. Results need review by a qualified engineer; local codes govern.`;
+
+/** Text of a cell as the user sees it (rich text and formulas' results included). */
+function cellText(cell: ExcelJS.Cell): string {
+  const v = cell.formula ? cell.result : cell.value;
+  if (v === null || v === undefined) return "";
+  if (typeof v === "object" && "richText" in v) return v.richText.map((r) => r.text).join("");
+  return typeof v === "object" ? "" : String(v);
+}
+
+/**
+ * The project's name: the workbook's title property, else the cell its defined name "Project"
+ * points at, else the file name without its extension.
+ * @param workbook - the workbook read
+ * @param input - its path
+ */
+export function projectName(workbook: XlsxWorkbook, input: string): string {
+  const title = workbook.excel.title?.trim();
+  if (title) return title;
+  for (const name of ["Project", "ProjectName", "Project_Name"]) {
+    const ranges = workbook.excel.definedNames.getRanges(name)?.ranges ?? [];
+    const m = /^'?((?:[^']|'')+?)'?!\$?([A-Z]{1,3})\$?(\d+)$/.exec(ranges[0] ?? "");
+    const text = m ? cellText(workbook.excel.getWorksheet(m[1]!.replace(/''/g, "'"))?.getCell(`${m[2]}${m[3]}`) ?? ({} as ExcelJS.Cell)).trim() : "";
+    if (text !== "") return text;
+  }
+  return basename(input, extname(input));
+}
+
+/** Today as YYYY-MM-DD (local time). */
+function today(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}-${String(d.getDate()).padStart(2, "0")}`;
+}
+
+/** Marks of `--members` (comma-separated, repeatable), trimmed, without blanks. */
+export function parseMarks(values: readonly string[]): string[] {
+  return values.flatMap((v) => v.split(",")).map((m) => m.trim()).filter((m) => m !== "");
+}
+
+/** The default choice (`--all`): every beam, girder, joist and column, in takedown order. */
+export function allMembers(record: TakedownRecord): string[] {
+  return [...record.members.values()].filter((m) => isFlexural(m.type) || m.type === "column").map((m) => m.mark);
+}
+
+/** What a report run needs besides the takedown's table options. */
+export interface ReportRun {
+  /** Marks to detail; undefined = every beam, girder, joist and column. */
+  readonly members?: readonly string[];
+  readonly project?: string;
+  readonly date?: string;
+}
+
+/** Outcome of {@link reportOfFile}. */
+export interface ReportFileResult {
+  readonly status: number;
+  /** The HTML, when the takedown could be built. */
+  readonly html?: string;
+  readonly record?: TakedownRecord;
+}
+
+/**
+ * Build the takedown of a file and its report in memory (nothing written).
+ * @param input - workbook to read
+ * @param run - the takedown's table options
+ * @param report - members, project name and date
+ * @param io - where problems and messages go
+ */
+export async function reportOfFile(input: string, run: TakedownRun, report: ReportRun, io: CliIO): Promise<ReportFileResult> {
+  const { result, workbook, port, options } = await takedownOfFile(input, run, MEMBERS_TABLE_OPTION);
+  for (const p of result.problems) io.err(describeTakedownProblem(p));
+  if (!result.ok || !result.json) {
+    io.out("Nothing was built: the problems above stop the takedown, so there is no report.");
+    return { status: EXIT.failed };
+  }
+  const record = await collectTakedown(port, options, result.json);
+  const members = report.members ?? allMembers(record);
+  const unknown = members.filter((m) => !record.members.has(m));
+  if (unknown.length > 0) {
+    io.err(`loadpath report: not in the takedown: ${unknown.join(", ")} (a mark of the Members table, spelled as there, not left out by a problem).`);
+    return { status: EXIT.usage };
+  }
+  const html = renderReport({ record, project: report.project ?? projectName(workbook, input), sourceFile: basename(input), date: report.date ?? today(), members, generator: "Loadpath" });
+  return { status: result.problems.length > 0 ? EXIT.failed : EXIT.ok, html, record };
+}
+
+const report: Command = {
+  summary: "write a printable calculation report (HTML) of a workbook's takedown",
+  usage: USAGE,
+  async run(args, io) {
+    let parsed;
+    try {
+      parsed = parseArgs({
+        args: [...args],
+        options: {
+          output: { type: "string", short: "o" },
+          members: { type: "string", multiple: true },
+          all: { type: "boolean" },
+          ...tableOptions(MEMBERS_TABLE_OPTION),
+          project: { type: "string" },
+          date: { type: "string" },
+        },
+        allowPositionals: true,
+      });
+    } catch (e) {
+      io.err(`loadpath report: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
+      return EXIT.usage;
+    }
+    const [input, ...extra] = parsed.positionals;
+    if (input === undefined || extra.length > 0) {
+      io.err(input === undefined ? `loadpath report: no input workbook given.\n\n${USAGE}` : `loadpath report: one input workbook at a time (got ${parsed.positionals.length}).`);
+      return EXIT.usage;
+    }
+    const v = parsed.values;
+    const output = typeof v.output === "string" ? v.output : undefined;
+    if (output === undefined) {
+      io.err(`loadpath report: name the HTML file to write with -o.\n\n${USAGE}`);
+      return EXIT.usage;
+    }
+    if (resolve(output) === resolve(input)) {
+      io.err(`loadpath report: ${output} is the input file; name another file, the input is never written over.`);
+      return EXIT.usage;
+    }
+    const memberValues = Array.isArray(v.members) ? v.members.filter((m): m is string => typeof m === "string") : [];
+    if (memberValues.length > 0 && v.all === true) {
+      io.err("loadpath report: give --members or --all, not both.");
+      return EXIT.usage;
+    }
+    const marks = parseMarks(memberValues);
+    if (memberValues.length > 0 && marks.length === 0) {
+      io.err("loadpath report: --members lists no mark.");
+      return EXIT.usage;
+    }
+    const checked = runOfOptions(v, MEMBERS_TABLE_OPTION);
+    if ("error" in checked) {
+      io.err(`loadpath report: ${checked.error}`);
+      return EXIT.usage;
+    }
+    try {
+      const r = await reportOfFile(input, checked.run, { ...(marks.length > 0 ? { members: marks } : {}), ...(typeof v.project === "string" ? { project: v.project } : {}), ...(typeof v.date === "string" ? { date: v.date } : {}) }, io);
+      if (r.html === undefined) return r.status;
+      writeFileSync(resolve(output), r.html);
+      const n = marks.length > 0 ? marks.length : allMembers(r.record!).length;
+      io.out(`Calculation report of ${n} member(s) written to ${output} (open it in a browser; print to PDF from there).`);
+      return r.status;
+    } catch (e) {
+      io.err(`loadpath report: ${e instanceof Error ? e.message : String(e)}`);
+      return EXIT.usage;
+    }
+  },
+};
+
+export default report;
+
+/** The demo's report part: the calculation report of sample building (a), written to the demo's output folder. */
+export const reportDemoPart: DemoPart = {
+  title: "Calculation report of sample-workbooks/steel-office-us.xlsx (HTML, prints to PDF from a browser)",
+  async run(io, ctx) {
+    const input = join(ctx.root, "sample-workbooks", "steel-office-us.xlsx");
+    const r = await reportOfFile(input, { units: "US" }, {}, io);
+    if (r.html === undefined) return r.status === EXIT.ok ? EXIT.failed : r.status;
+    const output = join(ctx.outDir, "steel-office-us-report.html");
+    writeFileSync(output, r.html);
+    const members = allMembers(r.record!);
+    io.out(`${members.length} members detailed (every beam, girder and column), with the column schedule, foundation reactions and load balance.`);
+    io.out(`Report: ${output}`);
+    return r.status;
+  },
+};

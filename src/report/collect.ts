@@ -1,0 +1,81 @@
+/**
+ * Everything a calculation report needs from a built takedown, gathered through the workbook
+ * port: the model and sheet plan (planned again from the same tables and options: planning is
+ * pure, so this is the plan that was written), the checked load path, and the computed cells of
+ * the generated sheet read back, from which every member's loads, supports and reactions come
+ * (src/engine/takedown/member-loads.ts). The results read this way are compared with the build's
+ * own JSON; a difference stops the report instead of printing numbers that disagree.
+ */
+import { createNativeWriter } from "../engine/native/takedown-writer";
+import { checkPath, planTakedown, readResults, type SheetPlan, type TakedownModel } from "../engine/takedown";
+import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-loads";
+import { cellAddress, sheetRef } from "../workbook/a1";
+import type { CellValue, WorkbookPort } from "../workbook/port";
+import { DEFAULT_TAKEDOWN_SHEET, sheetTitle } from "../workbook/takedown-build";
+import type { TakedownJson, TakedownOptions } from "../workbook/takedown-api";
+
+/** A built takedown as the report reads it. */
+export interface TakedownRecord {
+  readonly options: TakedownOptions;
+  readonly model: TakedownModel;
+  readonly plan: SheetPlan;
+  /** Levels from the top down. */
+  readonly levels: readonly string[];
+  /** The build's results (design.md section 5). */
+  readonly json: TakedownJson;
+  /** Every member's loads, supports and reactions, in takedown order. */
+  readonly members: ReadonlyMap<string, MemberLoads>;
+}
+
+/** Largest relative difference tolerated between the results read here and the build's JSON (both are the same cells). */
+const SAME = 1e-12;
+
+/** First difference between two JSON values (numbers within {@link SAME}), as a path; null when they agree. */
+function difference(a: unknown, b: unknown, path: string): string | null {
+  if (typeof a === "number" && typeof b === "number") {
+    const same = a === b || (Number.isNaN(a) && Number.isNaN(b)) || Math.abs(a - b) <= SAME * Math.max(1, Math.abs(a), Math.abs(b));
+    return same ? null : `${path}: ${a} and ${b}`;
+  }
+  if (typeof a !== "object" || typeof b !== "object" || a === null || b === null) return a === b ? null : `${path}: ${String(a)} and ${String(b)}`;
+  const ka = Object.keys(a);
+  const kb = Object.keys(b);
+  if (ka.length !== kb.length || ka.some((k, i) => k !== kb[i])) return `${path}: keys ${ka.join(",")} and ${kb.join(",")}`;
+  for (const k of ka) {
+    const d = difference((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], `${path}.${k}`);
+    if (d !== null) return d;
+  }
+  return null;
+}
+
+/**
+ * Gather the report's record of a takedown built on `port` with `options`.
+ * @param port - the workbook the takedown was built in (its generated sheet computed)
+ * @param options - the options it was built with
+ * @param json - the build's results
+ * @throws Error when a table cannot be read again or the sheet read back disagrees with `json`
+ */
+export async function collectTakedown(port: WorkbookPort, options: TakedownOptions, json: TakedownJson): Promise<TakedownRecord> {
+  const sheet = options.sheetName ?? DEFAULT_TAKEDOWN_SHEET;
+  const zones = await port.readTable(options.zones);
+  const members = await port.readTable(options.members);
+  const loads = options.loads ? await port.readTable(options.loads) : undefined;
+  const planned = planTakedown({
+    zones,
+    members,
+    ...(loads ? { loads } : {}),
+    units: options.units,
+    ...(options.mapping ? { mapping: options.mapping } : {}),
+    sheet,
+    title: sheetTitle(options),
+    ...(options.native ? { writer: createNativeWriter({ sheet }) } : {}),
+  });
+  if (!planned.plan || !planned.model) throw new Error("the takedown's tables cannot be planned again for the report.");
+  const { plan, model } = planned;
+  const area = await port.readTable(`${sheetRef(sheet)}!A1:${cellAddress(Math.max(0, plan.cells.length - 1), plan.layout.width - 1)}`);
+  const read = (row: number, col: number): CellValue | undefined => area.values[row - area.top]?.[col - area.left];
+  const again = readResults(plan, model, read, json.problems);
+  const diff = difference(again, json, "results");
+  if (diff !== null) throw new Error(`the takedown sheet read back for the report disagrees with the build (${diff}).`);
+  const path = checkPath(model);
+  return { options, model, plan, levels: planned.levels, json, members: loadsOfMembers({ model, plan, deliveries: path.deliveries, placedLoads: path.placedLoads, read }) };
+}

@@ -1,0 +1,98 @@
+/**
+ * Small builders of the report's HTML. Element and attribute names only ever come from this
+ * code; every attribute value and every piece of text goes through {@link escapeXml}, so text
+ * read from a cell (a mark, a zone name, a project name) is shown as text, never as markup.
+ * Numbers in tables carry their full value in `data-value`, so a reader (or a test) can check
+ * the printed figure against the computed one.
+ */
+import { escapeXml } from "../taskpane/diagrams/escape";
+
+/** Attribute values; `undefined` or `false` leaves the attribute out. */
+export type Attrs = Readonly<Record<string, string | number | boolean | undefined>>;
+
+/** Markup made by these builders (never raw text). */
+export interface Html {
+  readonly html: string;
+}
+
+/** Text or markup as a child: text is escaped, markup is kept. */
+export type Child = string | Html | null | undefined | false;
+
+/** The minus sign of printed numbers (U+2212). */
+export const MINUS = "\u2212";
+
+function attrText(attrs: Attrs): string {
+  let out = "";
+  for (const [k, v] of Object.entries(attrs)) {
+    if (v === undefined || v === false) continue;
+    out += v === true ? ` ${k}` : ` ${k}="${escapeXml(String(v))}"`;
+  }
+  return out;
+}
+
+/**
+ * Markup kept as it is: for SVG strings from the diagram renderers (which escape their own
+ * text) and for markup built here.
+ * @param html - trusted markup
+ */
+export function raw(html: string): Html {
+  return { html };
+}
+
+/** Children as markup: text escaped. */
+export function children(...kids: readonly Child[]): string {
+  return kids.map((k) => (k === null || k === undefined || k === false ? "" : typeof k === "string" ? escapeXml(k) : k.html)).join("");
+}
+
+/**
+ * One element.
+ * @param name - element name, a constant of this code
+ * @param attrs - attributes, values escaped here
+ * @param kids - children: text (escaped) or markup
+ */
+export function el(name: string, attrs: Attrs, ...kids: readonly Child[]): Html {
+  return { html: `<${name}${attrText(attrs)}>${children(...kids)}</${name}>` };
+}
+
+/** Several pieces of markup as one. */
+export function join(parts: readonly Child[]): Html {
+  return { html: children(...parts) };
+}
+
+/**
+ * A number with a fixed count of decimals and a true minus sign; "0" never shows as "−0.00".
+ * @param value - the number
+ * @param decimals - decimals shown
+ */
+export function fixed(value: number, decimals: number): string {
+  if (!Number.isFinite(value)) return "?";
+  const s = value.toFixed(decimals);
+  if (/^-0(\.0*)?$/.test(s)) return s.slice(1);
+  return s.startsWith("-") ? MINUS + s.slice(1) : s;
+}
+
+/** How many decimals each kind of number is printed with. */
+export const DECIMALS = { force: 2, moment: 2, line: 3, length: 2, area: 1, factor: 3, count: 0 } as const;
+
+/** A kind of number in {@link DECIMALS}. */
+export type NumberKind = keyof typeof DECIMALS;
+
+/**
+ * A table cell holding a number: printed with the kind's decimals, full value in `data-value`.
+ * @param value - the number (null or undefined: an empty cell)
+ * @param kind - what it is (sets the decimals)
+ * @param attrs - further attributes (data-* for readers)
+ */
+export function numCell(value: number | null | undefined, kind: NumberKind, attrs: Attrs = {}): Html {
+  if (value === null || value === undefined) return el("td", { class: "num", ...attrs }, "");
+  return el("td", { class: "num", "data-value": String(value), ...attrs }, fixed(value, DECIMALS[kind]));
+}
+
+/**
+ * A position or length as printed in prose: at most two decimals, trailing zeros dropped.
+ * @param value - the length
+ */
+export function length(value: number): string {
+  const s = fixed(value, DECIMALS.length);
+  return s.includes(".") ? s.replace(/0+$/, "").replace(/\.$/, "") : s;
+}
