@@ -10,6 +10,7 @@ import type ExcelJS from "exceljs";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
 import { gravityLoadsPart } from "./demo-gravity-loads";
+import { reportDemoPart } from "./report";
 import { takedownDemoPart } from "./takedown";
 
 /** What every demo part gets: where the package's files are and where to write. */
@@ -97,7 +98,7 @@ export const beamSchedulePart: DemoPart = {
 };
 
 /** The demo's parts, in order. */
-export const DEMO_PARTS: DemoPart[] = [beamSchedulePart, gravityLoadsPart, takedownDemoPart];
+export const DEMO_PARTS: DemoPart[] = [beamSchedulePart, gravityLoadsPart, takedownDemoPart, reportDemoPart];
 
 const demo: Command = {
   summary: "recalculate the sample workbooks and print their results",
