@@ -103,12 +103,24 @@ export function handFraming() {
   });
   const G1 = { ...girder("left"), llr: handLlr(2, B1.areaT / 2 + B2.areaT / 2) };
   const G2 = girder("right");
-  // Columns carry one girder end each; a footing carries one column.
+  // What each girder hands to its columns of tributary area (ft²) and of reducible live load (kip,
+  // the zone's part: the storage strip of the Loads table is not reducible), by statics: each beam
+  // end delivers half its area and half its zone live load at 10 ft (B1) and 18 ft (B2).
+  const onGirder = (b1: number, b2: number) => handReactions(span, [{ p: b1, x: 10 }, { p: b2, x: 18 }]);
+  const areaT = onGirder(B1.areaT / 2, B2.areaT / 2);
+  const reducible = onGirder((b1.wL * span) / 2, (b2.wL * span) / 2);
+  // Columns carry one girder end each (one floor; K_LL = 4, interior column, Table 4.7-2, recalled
+  // from memory); a footing carries one column. Reduced live: the non-reducible part as is, the
+  // reducible part times L/Lo (ASCE/SEI 7-22 Sec. 4.7).
+  const column = (D: number, L: number, at: number, lred: number) => {
+    const llr = handLlr(4, at);
+    return { D, L, areaT: at, kllAt: 4 * at, llr, reducedLive: L - (1 - llr) * lred };
+  };
   const columns = {
-    C1: { D: G1.D.left, L: G1.L.left },
-    C2: { D: G1.D.right, L: G1.L.right },
-    C3: { D: G2.D.left, L: G2.L.left },
-    C4: { D: G2.D.right, L: G2.L.right },
+    C1: column(G1.D.left, G1.L.left, areaT.left, reducible.left),
+    C2: column(G1.D.right, G1.L.right, areaT.right, reducible.right),
+    C3: column(G2.D.left, G2.L.left, areaT.left, reducible.left),
+    C4: column(G2.D.right, G2.L.right, areaT.right, reducible.right),
   };
   const applied = {
     D: b1.wD * span + b2.wD * span + b2.unit + 2 * 0.06 * span,
