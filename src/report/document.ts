@@ -131,7 +131,8 @@ function summary(input: ReportInput): string {
   const byType = new Map<string, number>();
   for (const m of input.record.members.values()) byType.set(m.type, (byType.get(m.type) ?? 0) + 1);
   const counts = [...byType].map(([t, n]) => `${n} ${t}${n === 1 ? "" : "s"}`).join(", ");
-  const levels = input.record.levels.length > 0 ? ` on ${input.record.levels.length} level(s) (${input.record.levels.join(", ")}, from the top)` : "";
+  const lv = input.record.levels;
+  const levels = lv.length === 0 ? "" : lv.length === 1 ? ` on level ${lv[0]}` : ` on ${lv.length} levels (from the top: ${lv.join(", ")})`;
   return `The takedown carries ${counts}${levels}, in load cases ${input.record.model.cases.join(", ")}.`;
 }
 
