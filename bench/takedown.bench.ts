@@ -5,46 +5,94 @@
  * back), and the recalculation after one zone load is edited in the largest workbook.
  * Targets (issue 4): 20,000 members built and written in under 5 s; one zone change
  * recalculated in under 1 s; time growing no faster than linearly with the member count.
+ *
+ * Each build is broken into phases: the engine's plan (tables -> checked, ordered sheet plan),
+ * queueing the plan's blocks in the port, the spreadsheet engine's build (parsing every formula
+ * and building the dependency graph, then ordering it), its first evaluation (every formula,
+ * LOADPATH functions included), reading the results back, and, beside the target, copying the
+ * generated sheet into an .xlsx file in memory (what `loadpath takedown -o` adds). The engine's
+ * own phase times come from its statistics (`useStats`). The process CPU time is printed beside
+ * the wall time: on a machine shared with other work the wall time is the larger.
  * Needs `npm run build` (the headless engine loads the built functions bundle).
  */
+import ExcelJS from "exceljs";
 import { planTakedown } from "../src/engine/takedown";
-import { MemoryWorkbookPort } from "../src/workbook/memory-port";
+import { exportSheets, MemoryWorkbookPort } from "../src/workbook/memory-port";
 import { buildTakedown } from "../src/workbook/takedown-build";
 import { frameOfSize, makeFrame } from "../test/workbook/takedown-fixtures";
 import { report, timeMs } from "./timing";
 
 const SIZES = [1000, 5000, 20000] as const;
 
-/** Phase times of one build, from the progress messages. */
+/** Phase times of one build (ms). */
 interface Phases {
   readonly totalMs: number;
+  readonly cpuMs: number;
+  readonly readTablesMs: number;
   readonly planMs: number;
-  readonly writeAndCalculateMs: number;
+  readonly queueMs: number;
+  readonly flushMs: number;
+  /** Spreadsheet engine: parsing the formulas and building the dependency graph. */
+  readonly parseAndGraphMs: number;
+  /** Spreadsheet engine: ordering the dependency graph. */
+  readonly sortMs: number;
+  /** Spreadsheet engine: evaluating every formula once. */
+  readonly evaluateMs: number;
   readonly readBackMs: number;
 }
 
-async function buildOnce(size: number): Promise<{ port: MemoryWorkbookPort; phases: Phases; members: number; zone: string; levels: number }> {
+interface Built {
+  readonly port: MemoryWorkbookPort;
+  readonly phases: Phases;
+  readonly members: number;
+  readonly zone: string;
+  readonly levels: number;
+}
+
+/** Milliseconds of process CPU time (all threads) since `start`. */
+function cpuMsSince(start: NodeJS.CpuUsage): number {
+  const d = process.cpuUsage(start);
+  return (d.user + d.system) / 1000;
+}
+
+async function buildOnce(size: number): Promise<Built> {
   const shape = frameOfSize(size);
   const frame = makeFrame(shape);
-  const port = await MemoryWorkbookPort.create({ sheets: frame.sheets });
+  const port = await MemoryWorkbookPort.create({ sheets: frame.sheets, config: { useStats: true } });
   const marks: Record<string, number> = {};
+  const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const result = await buildTakedown(port, { zones: "Zones", members: "Members", units: "US" }, (_f, message) => {
     const key = message.startsWith("Writing") ? "Writing" : message;
     marks[key] ??= performance.now();
   });
   const t1 = performance.now();
+  const cpuMs = cpuMsSince(cpu0);
   if (!result.ok || result.problems.length > 0) throw new Error(`the ${size}-member frame did not build: ${result.problems[0]?.message ?? "not ok"}`);
-  const planStart = marks["Checking the load path"] ?? t0;
-  const planEnd = marks["Preparing the sheet"] ?? planStart;
-  const calcStart = planEnd;
-  const readStart = marks["Reading the results"] ?? t1;
+  const at = (key: string, fallback: number): number => marks[key] ?? fallback;
+  const planStart = at("Checking the load path", t0);
+  const planEnd = at("Preparing the sheet", planStart);
+  const flushStart = at("Calculating", planEnd);
+  const readStart = at("Reading the results", t1);
+  const stats = port.hf.getStats();
+  const stat = (name: string): number => stats.get(name as never) ?? 0;
   return {
     port,
     members: frame.memberCount,
     zone: frame.zoneOfLevel.L5!,
     levels: shape.levels,
-    phases: { totalMs: t1 - t0, planMs: planEnd - planStart, writeAndCalculateMs: readStart - calcStart, readBackMs: t1 - readStart },
+    phases: {
+      totalMs: t1 - t0,
+      cpuMs,
+      readTablesMs: planStart - t0,
+      planMs: planEnd - planStart,
+      queueMs: flushStart - planEnd,
+      flushMs: readStart - flushStart,
+      parseAndGraphMs: stat("GRAPH_BUILD"),
+      sortMs: stat("TOP_SORT"),
+      evaluateMs: stat("EVALUATION"),
+      readBackMs: t1 - readStart,
+    },
   };
 }
 
@@ -63,22 +111,43 @@ function planOnlyMs(size: number): number {
   return performance.now() - t0;
 }
 
+/** The generated sheet copied into an .xlsx file in memory (formulas with cached values). */
+async function exportMs(port: MemoryWorkbookPort): Promise<number> {
+  return timeMs(async () => {
+    const excel = new ExcelJS.Workbook();
+    exportSheets(port, excel);
+    await excel.xlsx.writeBuffer();
+  });
+}
+
+function reportPhases(built: Built): void {
+  const p = built.phases;
+  const n = built.members;
+  report(`takedown of ${n.toLocaleString("en-US")} members: built, written, calculated`, p.totalMs, "ms", n >= 20000 ? "< 5,000 ms" : undefined);
+  report(`  process CPU time meanwhile (all threads)`, p.cpuMs, "ms");
+  report(`  reading the tables through the port`, p.readTablesMs, "ms");
+  report(`  build plan: tables -> checked, ordered sheet plan (engine)`, p.planMs, "ms");
+  report(`  write: plan queued in the port in blocks`, p.queueMs, "ms");
+  report(`  calculate: spreadsheet engine built from the sheets`, p.flushMs, "ms");
+  report(`    of which parsing formulas + dependency graph`, p.parseAndGraphMs, "ms");
+  report(`    of which ordering the dependency graph`, p.sortMs, "ms");
+  report(`    of which evaluating every formula`, p.evaluateMs, "ms");
+  report(`  read back: results read from the sheet, JSON`, p.readBackMs, "ms");
+  report(`  per member`, p.totalMs / n, "ms");
+}
+
 export async function run(): Promise<void> {
   // Warm-up: load the functions bundle and let the JIT see every path once.
   await buildOnce(300);
   planOnlyMs(1000);
   const perMember: number[] = [];
-  let largest: Awaited<ReturnType<typeof buildOnce>> | null = null;
+  let largest: Built | null = null;
   for (const size of SIZES) {
     const built = await buildOnce(size);
-    const p = built.phases;
-    report(`takedown of ${built.members.toLocaleString("en-US")} members: built, written, calculated`, p.totalMs, "ms", size === 20000 ? "< 5,000 ms" : undefined);
-    report(`  of which tables -> checked, ordered sheet plan (engine)`, p.planMs, "ms");
-    report(`  of which writing and calculating in the headless engine`, p.writeAndCalculateMs, "ms");
-    report(`  of which reading the results back`, p.readBackMs, "ms");
-    report(`  per member`, p.totalMs / built.members, "ms");
-    perMember.push(p.totalMs / built.members);
-    if (size === 20000) largest = built;
+    reportPhases(built);
+    perMember.push(built.phases.totalMs / built.members);
+    if (size === SIZES[SIZES.length - 1]) largest = built;
+    else built.port.hf.destroy();
   }
   report("plan only (engine, no spreadsheet engine), 20,000 members", planOnlyMs(20000), "ms");
   const growth = perMember[perMember.length - 1]! / perMember[0]!;
@@ -89,5 +158,6 @@ export async function run(): Promise<void> {
     const before = largest.port.value("Zones", cell) as number;
     const ms = await timeMs(() => largest!.port.setCell("Zones", cell, before + 10));
     report(`recalculation after one zone change (${largest.zone} D: one floor of ${largest.levels - 1})`, ms, "ms", "< 1,000 ms");
+    report(`generated sheet written to .xlsx in memory, ${largest.members.toLocaleString("en-US")} members`, await exportMs(largest.port), "ms");
   }
 }
