@@ -5,17 +5,27 @@
  * Gnumeric.
  *
  * Reactions are statics over the member's load rows (SUMPRODUCT). The largest shear and moment
- * need the exact extremes, which take a helper block per member and load case (see
- * simple-span.ts); those blocks go on a helper sheet beside the takedown sheet, and the takedown's
- * shear and moment cells reference them. A member carrying one uniform load over its whole length
- * between end pins needs no block: wL/2 and wL^2/8.
+ * need the exact extremes, which take a helper block per member with a column group per load case
+ * (uniform-span.ts: a takedown's line loads are uniform, full or partial, and its point loads are
+ * reactions and Loads-table points); those blocks go on a helper sheet beside the takedown sheet,
+ * and the takedown's shear and moment cells reference them. A member carrying one uniform load
+ * over its whole length between end pins needs no block: wL/2 and wL^2/8.
  */
 import { kllOf, type LoadCase as EngineLoadCase } from "../loads";
 import type { ChannelRefs, FormulaWriter, MemberRefs } from "../takedown/formulas";
 import type { UnitSystem } from "../takedown/types";
 import { combinationFormulas, liveReductionFactorFormula } from "./loads";
-import { cellRef, cellsOfColumnRange, num, quoteSheet } from "./refs";
-import { extremesBlock, reactionFormulas, type NativeCell, type SimpleSpanRefs } from "./simple-span";
+import { cellsOfColumnRange, num, quoteSheet, type BlockOrigin } from "./refs";
+import type { NativeCell } from "./simple-span";
+import {
+  uniformBlockHeight,
+  uniformCaseRefs,
+  uniformExtremesBlock,
+  uniformReactionFormulas,
+  type UniformCaseMagnitudes,
+  type UniformCaseRefs,
+  type UniformSpanGeometry,
+} from "./uniform-span";
 
 /** Options of a hand-off writer. */
 export interface NativeWriterOptions {
@@ -34,7 +44,7 @@ export interface NativeFormulaWriter extends FormulaWriter {
    * member; `title` goes in A1 (the generated-sheet marker and a title).
    */
   helperCells(title: string): NativeCell[][];
-  /** Number of helper blocks written (members x load cases whose extremes need one). */
+  /** Number of helper column groups written (members x load cases whose extremes need one). */
   blockCount(): number;
 }
 
@@ -52,35 +62,32 @@ const FIRST_BLOCK_ROW = 4;
 
 /** Explanation written under the helper sheet's title. */
 export const HELPER_EXPLANATION =
-  "Helper cells of the hand-off takedown: for each member and load case, the exact largest shear and moment. " +
-  "x = sorted breakpoints (ends, supports, load ends, point loads); on each segment V(x + u) = V0 + V1 u + V2 u^2; " +
-  "M(x) carried from the left end by exact integration; u1, u2 = roots of V on the segment (clamped to it). " +
-  "The takedown sheet reads M max and |V| max from the first row of each block (member mark in column A). Do not edit: rebuilt with the takedown.";
+  "Helper cells of the hand-off takedown: for each member (mark in column A) and load case, the exact largest shear and moment. " +
+  "x = sorted breakpoints (ends, supports, load ends, point loads), h = segment length; per load case, V0 = shear just right of x, " +
+  "w = load intensity on the segment, so V(x + u) = V0 - w u; M(x) carried from the left end by exact integration; " +
+  "the segment's largest moment is M(x) or the peak at u = V0 / w when it lies on the segment. " +
+  "The takedown sheet reads M max and |V| max from the result row of each load case. Do not edit: rebuilt with the takedown.";
 
 /** Prefix a reference on the takedown sheet with the sheet's name (unless it already has one). */
 function qualify(sheet: string, ref: string): string {
   return ref.includes("!") ? ref : `${quoteSheet(sheet)}!${ref}`;
 }
 
-/** The member's loads and geometry in the generator's terms (references qualified with `at`). */
-function spanRefs(member: MemberRefs, loads: ChannelRefs, at: (ref: string) => string): SimpleSpanRefs {
+/** The member's geometry and load positions in the generator's terms (references qualified with `at`). */
+function geometryOf(member: MemberRefs, loads: ChannelRefs, at: (ref: string) => string): UniformSpanGeometry {
   const rows = rowCount(loads.magnitude);
   const pins = member.supports === null ? [] : cellsOfColumnRange(member.supports, 2).map(at);
   return {
     span: at(member.span),
     ...(pins.length === 2 ? { leftPin: pins[0]!, rightPin: pins[1]! } : {}),
-    lines: [
-      {
-        startIntensity: at(loads.magnitude),
-        endIntensity: at(loads.magnitude),
-        start: at(loads.from),
-        length: at(loads.loaded),
-        rows,
-        mask: `(${at(loads.kind)}="line")`,
-      },
-    ],
-    points: [{ force: at(loads.magnitude), at: at(loads.from), rows, mask: `(${at(loads.kind)}<>"line")` }],
+    lines: [{ start: at(loads.from), length: at(loads.loaded), rows, mask: `(${at(loads.kind)}="line")` }],
+    points: [{ at: at(loads.from), rows, mask: `(${at(loads.kind)}<>"line")` }],
   };
+}
+
+/** One case's magnitudes (the channel's magnitude column serves line and point rows alike). */
+function magnitudesOf(loads: ChannelRefs, at: (ref: string) => string): UniformCaseMagnitudes {
+  return { lines: [at(loads.magnitude)], points: [at(loads.magnitude)] };
 }
 
 /** Rows of a one-column range reference like `L14:L17` (1 for a single cell). */
@@ -106,45 +113,48 @@ function firstCell(range: string): string {
 export function createNativeWriter(options: NativeWriterOptions): NativeFormulaWriter {
   const sheet = options.sheet;
   const helper = options.helperSheet ?? helperSheetName(sheet);
-  const rows: NativeCell[][] = [];
-  const blocks = new Map<string, { momentMax: string; shearMax: string }>();
+  /** Member blocks in order of first use: origin, geometry, and the load cases asked for. */
+  const members = new Map<string, { origin: BlockOrigin; geometry: UniformSpanGeometry; markRow: string | undefined; cases: { key: string; loads: ChannelRefs }[] }>();
   let nextRow = FIRST_BLOCK_ROW;
   const onSheet = (ref: string): string => ref;
   const onHelper = (ref: string): string => qualify(sheet, ref);
 
-  const put = (r: number, c: number, v: NativeCell): void => {
-    while (rows.length <= r) rows.push([]);
-    const row = rows[r]!;
-    while (row.length <= c) row.push(null);
-    row[c] = v;
+  /** The helper block group of a member and load case (rows reserved on first use of the member). */
+  const groupOf = (member: MemberRefs, loads: ChannelRefs): UniformCaseRefs => {
+    const key = `${member.span}|${member.supports ?? ""}|${loads.kind}`;
+    let block = members.get(key);
+    if (!block) {
+      const geometry = geometryOf(member, loads, onHelper);
+      block = { origin: { sheet: helper, row: nextRow, col: 0 }, geometry, markRow: /([0-9]+)$/.exec(member.span)?.[1], cases: [] };
+      members.set(key, block);
+      nextRow += uniformBlockHeight(geometry) + 2;
+    }
+    let index = block.cases.findIndex((c) => c.key === loads.magnitude);
+    if (index < 0) {
+      block.cases.push({ key: loads.magnitude, loads });
+      index = block.cases.length - 1;
+    }
+    return uniformCaseRefs({ ...block.origin, row: block.origin.row + 1 }, index);
   };
 
-  /** The helper block of a member and load case, written on first use. */
-  const blockOf = (member: MemberRefs, loads: ChannelRefs): { momentMax: string; shearMax: string } => {
-    const key = `${member.span}|${member.supports ?? ""}|${loads.magnitude}`;
-    const known = blocks.get(key);
-    if (known) return known;
-    const refs = spanRefs(member, loads, onHelper);
-    const head = nextRow;
-    const r = reactionFormulas(refs);
-    const at = (col: number): string => cellRef(helper, head, col);
-    const block = extremesBlock(refs, { left: at(2), right: at(4) }, { sheet: helper, row: head + 1, col: 0 });
-    const markRow = /([0-9]+)$/.exec(member.span)?.[1];
-    put(head, 0, markRow === undefined ? qualify(sheet, member.span) : { formula: `${quoteSheet(sheet)}!$A$${markRow}` });
-    put(head, 9, `loads in ${qualify(sheet, loads.magnitude)}, length in ${qualify(sheet, member.span)}`);
-    put(head, 1, "R1");
-    put(head, 2, { formula: r.left });
-    put(head, 3, "R2");
-    put(head, 4, { formula: r.right });
-    put(head, 5, "M max");
-    put(head, 6, { formula: block.momentMax });
-    put(head, 7, "|V| max");
-    put(head, 8, { formula: block.shearMaxAbs });
-    block.cells.forEach((row, i) => row.forEach((v, j) => v !== null && put(head + 1 + i, j, v)));
-    nextRow = head + 1 + block.cells.length + 1;
-    const out = { momentMax: at(6), shearMax: at(8) };
-    blocks.set(key, out);
-    return out;
+  /** Every block's cells, from the members and cases asked for. */
+  const cells = (): NativeCell[][] => {
+    const rows: NativeCell[][] = [];
+    const put = (r: number, c: number, v: NativeCell): void => {
+      while (rows.length <= r) rows.push([]);
+      const row = rows[r]!;
+      while (row.length <= c) row.push(null);
+      row[c] = v;
+    };
+    for (const b of members.values()) {
+      const head = b.origin.row;
+      put(head, 0, b.markRow === undefined ? qualify(sheet, b.geometry.span) : { formula: `${quoteSheet(sheet)}!$A$${b.markRow}` });
+      put(head, 1, `length ${b.geometry.span}; loads in rows of ${b.cases[0] ? qualify(sheet, b.cases[0].loads.magnitude) : ""}`);
+      const cases = b.cases.map((c) => ({ ...magnitudesOf(c.loads, onHelper), label: `loads ${qualify(sheet, c.loads.magnitude)}` }));
+      const block = uniformExtremesBlock(b.geometry, cases, { ...b.origin, row: head + 1 });
+      block.forEach((row, i) => row.forEach((v, j) => v !== null && put(head + 1 + i, j, v)));
+    }
+    return rows;
   };
 
   /** wL/2, wL^2/8 for one uniform load over the whole length between end pins. */
@@ -158,16 +168,16 @@ export function createNativeWriter(options: NativeWriterOptions): NativeFormulaW
     reaction(member, loads, index) {
       const u = uniformCase(member, loads);
       if (u) return `${u.w}*${u.span}/2`;
-      const r = reactionFormulas(spanRefs(member, loads, onSheet));
+      const r = uniformReactionFormulas(geometryOf(member, loads, onSheet), magnitudesOf(loads, onSheet));
       return index === 1 ? r.left : r.right;
     },
     shearMax(member, loads) {
       const u = uniformCase(member, loads);
-      return u ? `ABS(${u.w}*${u.span}/2)` : blockOf(member, loads).shearMax;
+      return u ? `ABS(${u.w}*${u.span}/2)` : groupOf(member, loads).shearMax;
     },
     momentMax(member, loads) {
       const u = uniformCase(member, loads);
-      return u ? `MAX(0,${u.w}*${u.span}^2/8)` : blockOf(member, loads).momentMax;
+      return u ? `MAX(0,${u.w}*${u.span}^2/8)` : groupOf(member, loads).momentMax;
     },
     kllDefault(element) {
       const k = kllOf(element);
@@ -182,12 +192,12 @@ export function createNativeWriter(options: NativeWriterOptions): NativeFormulaW
       return `MAX(${unique.join(",")})`;
     },
     helperCells(title) {
-      const out = rows.map((r) => [...r]);
+      const out = cells();
       while (out.length < 2) out.push([]);
       out[0] = [title];
       out[1] = [HELPER_EXPLANATION];
       return out;
     },
-    blockCount: () => blocks.size,
+    blockCount: () => [...members.values()].reduce((n, b) => n + b.cases.length, 0),
   };
 }

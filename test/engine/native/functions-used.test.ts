@@ -10,6 +10,7 @@ import type { NativeCell } from "../../../src/engine/native/simple-span";
 import { functionsCalled } from "../../handoff/package-check";
 import { memberCase } from "./cases";
 import { layOutMembers } from "./member-sheet";
+import { layOutUniform, uniformMember } from "./uniform-sheet";
 
 function formulasOf(rows: readonly (readonly NativeCell[])[]): string[] {
   return rows.flatMap((r) => r.flatMap((v) => (v !== null && typeof v === "object" ? [v.formula] : [])));
@@ -27,6 +28,13 @@ describe("functions called by the native formulas", () => {
     const used = new Set(formulasOf(sheet.rows).flatMap(functionsCalled));
     expect([...used].filter((f) => !allowed.has(f))).toEqual([]);
     expect(used.has("SUMPRODUCT") && used.has("SMALL") && used.has("SQRT")).toBe(true);
+  });
+
+  it("uniform-load blocks (the takedown's helper blocks) use only the hand-off list", () => {
+    const sheet = layOutUniform("U", fc.sample(uniformMember, { numRuns: 30, seed: 4 }));
+    const used = new Set(formulasOf(sheet.rows).flatMap(functionsCalled));
+    expect([...used].filter((f) => !allowed.has(f))).toEqual([]);
+    expect(used.has("SUMPRODUCT") && used.has("SMALL")).toBe(true);
   });
 
   it("load formulas use only the hand-off list", () => {
