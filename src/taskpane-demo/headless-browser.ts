@@ -10,14 +10,29 @@ import type { Headless, HeadlessOptions } from "../workbook/headless";
 export * from "../workbook/headless-plugin";
 export type { Headless, HeadlessOptions } from "../workbook/headless";
 
-/** The engine configuration used everywhere headless (HyperFormula under GPL-3.0). */
-export const HEADLESS_CONFIG: Partial<ConfigParams> = { licenseKey: "gpl-v3", language: "enGB" };
+/**
+ * The engine configuration used everywhere headless (HyperFormula under GPL-3.0): the same
+ * settings as HEADLESS_CONFIG of headless.ts (full doubles, range arithmetic as Excel does),
+ * which this page cannot import (it reads files from disk).
+ */
+export const HEADLESS_CONFIG: Partial<ConfigParams> = { licenseKey: "gpl-v3", language: "enGB", smartRounding: false, useArrayArithmetic: true };
 
 let pageBundle: LoadedBundle | null = null;
 
 /** Record the bundle registered in this page (register.ts calls it). */
 export function usePageBundle(bundle: LoadedBundle): void {
   pageBundle = bundle;
+}
+
+/** The page has no dist folder; the stand-in's registerLoadpathFunctions ignores the folder given. */
+export function defaultDistDir(): string {
+  return "";
+}
+
+/** The bundle this page registered (the folder argument is ignored in the page). */
+export function registerLoadpathFunctions(_distDir?: string): LoadedBundle {
+  if (!pageBundle) throw new Error("The LOADPATH functions are not registered in this page yet.");
+  return pageBundle;
 }
 
 /** A HyperFormula instance with the page's LOADPATH functions (the distDir option is ignored). */
