@@ -5,7 +5,7 @@
  * bounded size, with calculation suspended and events off, so a build costs the same handful of
  * round trips whether the building has 50 members or 5,000 (plus one per ~4 MB of formulas).
  */
-import { ForeignSheetError, GENERATED_MARKER, type CellInput, type RangeData, type TableInfo, type WorkbookPort } from "./port";
+import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellSelection, type PictureInput, type RangeData, type TableInfo, type WorkbookPort } from "./port";
 import { DEFAULT_CHUNK_BYTES, fromExcelValue, parseRangeAddress, planChunks, splitSheetRef, type QueuedBlock } from "./office-chunks";
 
 /** The cell that holds the generated-sheet marker on a sheet the add-in made. */
@@ -25,6 +25,32 @@ function supports(version: string): boolean {
 
 function textOf(value: unknown): string {
   return value === null || value === undefined ? "" : String(value);
+}
+
+/**
+ * The first cell of an address as a selection event gives it ("B3", "$B$3:$D$9", "Sheet1!B3:C4",
+ * "B3:C4,F7" for several areas), as a plain A1 address; null when it is not one (whole columns
+ * "B:B" and whole rows "3:3" start at their first cell).
+ * @param address - the range address
+ */
+export function firstCellOf(address: string): string | null {
+  const area = address.slice(address.lastIndexOf("!") + 1).split(",")[0]!.split(":")[0]!.replace(/\$/g, "").trim();
+  if (/^[A-Za-z]{1,3}\d+$/.test(area)) return area.toUpperCase();
+  if (/^[A-Za-z]{1,3}$/.test(area)) return `${area.toUpperCase()}1`;
+  if (/^\d+$/.test(area)) return `A${area}`;
+  return null;
+}
+
+type SelectionRegistration = OfficeExtension.EventHandlerResult<Excel.WorksheetSelectionChangedEventArgs>;
+
+/** Remove event handlers, each in its own request context (as Office.js requires). */
+async function removeHandlers(registrations: readonly SelectionRegistration[]): Promise<void> {
+  for (const r of registrations) {
+    await Excel.run(r.context, async (context) => {
+      r.remove();
+      await context.sync();
+    });
+  }
 }
 
 /** WorkbookPort over the workbook open in Excel (task pane, shared runtime). */
@@ -189,6 +215,97 @@ export class OfficeWorkbookPort implements WorkbookPort {
         if (events) context.runtime.enableEvents = true;
         await context.sync();
       }
+    });
+  }
+
+  /** Selection events need ExcelApi 1.7 (per worksheet); 1.9 adds one event for every sheet. */
+  followsSelection(): boolean {
+    return supports("1.7");
+  }
+
+  /**
+   * Follow the selection: one handler on the worksheet collection (ExcelApi 1.9), or on each
+   * worksheet present now (1.7). Each event costs one round trip to turn the sheet's id into
+   * its name. Handlers are not saved with the file; the returned function removes them.
+   */
+  async onSelectionChanged(handler: (selection: CellSelection) => void): Promise<() => void> {
+    if (!supports("1.7")) throw new Error("This version of Excel does not report selection changes (ExcelApi 1.7 is needed).");
+    const onEvent = async (args: Excel.WorksheetSelectionChangedEventArgs): Promise<void> => {
+      const address = firstCellOf(args.address);
+      if (address === null) return;
+      const sheet = await this.sheetNameOf(args.worksheetId);
+      if (sheet !== null) handler({ sheet, address });
+    };
+    const registrations = await Excel.run(async (context) => {
+      const out: SelectionRegistration[] = [];
+      if (supports("1.9")) {
+        out.push(context.workbook.worksheets.onSelectionChanged.add(onEvent));
+      } else {
+        const sheets = context.workbook.worksheets.load("items/name");
+        await context.sync();
+        for (const ws of sheets.items) out.push(ws.onSelectionChanged.add(onEvent));
+      }
+      await context.sync();
+      return out;
+    });
+    let removed = false;
+    return () => {
+      if (removed) return;
+      removed = true;
+      void removeHandlers(registrations).catch(() => undefined);
+    };
+  }
+
+  /** One round trip: the selected range (ExcelApi 1.1) and its top-left cell. */
+  async activeCell(): Promise<CellSelection | null> {
+    return Excel.run(async (context) => {
+      const range = context.workbook.getSelectedRange().load("address");
+      await context.sync();
+      const bang = range.address.lastIndexOf("!");
+      const address = firstCellOf(range.address);
+      if (bang < 0 || address === null) return null;
+      const raw = range.address.slice(0, bang);
+      const sheet = raw.startsWith("'") && raw.endsWith("'") ? raw.slice(1, -1).replace(/''/g, "'") : raw;
+      return { sheet, address };
+    });
+  }
+
+  /** Pictures go in through the shapes API (ExcelApi 1.9). */
+  canInsertPicture(): boolean {
+    return supports("1.9");
+  }
+
+  /**
+   * Place a PNG on a sheet the add-in made, at a cell: the marker is checked first (any other
+   * sheet is refused), a picture of the same name is replaced (ExcelApi 1.14; older hosts add
+   * another), then the picture is added and sized. Four round trips.
+   */
+  async insertPicture(sheet: string, picture: PictureInput): Promise<void> {
+    if (!supports("1.9")) throw new Error("This version of Excel cannot insert pictures from an add-in (ExcelApi 1.9 is needed).");
+    await Excel.run(async (context) => {
+      const found = await this.markerIn(context, sheet);
+      if (found.marker === null) throw new Error(`Loadpath places pictures only on sheets it made; "${sheet}" is not one.`);
+      const ws = context.workbook.worksheets.getItem(sheet);
+      const old = supports("1.14") ? ws.shapes.getItemOrNullObject(picture.name).load("isNullObject") : null;
+      const anchor = ws.getCell(picture.row, picture.col).load("left,top");
+      await context.sync();
+      if (old && !old.isNullObject) old.delete();
+      const shape = ws.shapes.addImage(picture.pngBase64);
+      shape.name = picture.name;
+      shape.left = anchor.left;
+      shape.top = anchor.top;
+      shape.width = picture.widthPt;
+      shape.height = picture.heightPt;
+      await context.sync();
+    });
+  }
+
+  /** A worksheet's name from its id (one round trip); null when it is gone. */
+  private async sheetNameOf(id: string): Promise<string | null> {
+    return Excel.run(async (context) => {
+      const ws = context.workbook.worksheets.getItemOrNullObject(id).load("isNullObject,name");
+      await context.sync();
+      return ws.isNullObject ? null : ws.name;
     });
   }
 

@@ -3,6 +3,7 @@
  * over a WorkbookPort) and its callers: the task pane and the `loadpath takedown` command.
  * Shapes of the JSON follow design.md section 5 exactly.
  */
+import type { SheetPlan, TakedownModel } from "../engine/takedown";
 import type { WorkbookPort } from "./port";
 
 export type UnitSystem = "US" | "SI";
@@ -102,6 +103,23 @@ export interface TakedownJson {
   readonly problems: readonly Problem[];
 }
 
+/** A member's block on the generated sheet: 0-based first row (its results row) and row count. */
+export interface MemberRows {
+  readonly row: number;
+  readonly rows: number;
+}
+
+/**
+ * What a written build keeps for the pane's member diagrams: the model and the sheet plan that
+ * was written (so computed cells can be read back per member), and each member's rows.
+ */
+export interface BuiltTakedown {
+  readonly model: TakedownModel;
+  readonly plan: SheetPlan;
+  /** Mark -> its block of rows on the generated sheet (members in the takedown only). */
+  readonly rowsByMember: Readonly<Record<string, MemberRows>>;
+}
+
 export interface TakedownBuildResult {
   /** False when problems stopped the build (nothing written). */
   readonly ok: boolean;
@@ -110,6 +128,8 @@ export interface TakedownBuildResult {
   readonly json?: TakedownJson;
   /** The generated sheet's name when written. */
   readonly sheet?: string;
+  /** The model, plan and member rows of a written takedown (absent when nothing was written). */
+  readonly built?: BuiltTakedown;
   /** Members whose results were written as values in native mode, with why. */
   readonly valueOnly?: readonly { readonly mark: string; readonly reason: string }[];
 }

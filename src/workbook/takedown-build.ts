@@ -8,7 +8,7 @@ import { cellAddress, sheetRef } from "./a1";
 import { createNativeWriter, type NativeFormulaWriter } from "../engine/native/takedown-writer";
 import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type Problem as EngineProblem, type SheetPlan, type TableData } from "../engine/takedown";
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
-import type { BuildTakedown, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
+import type { BuildTakedown, BuiltTakedown, MemberRows, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
 
 /** Default name of the generated sheet (design.md section 5). */
 export const DEFAULT_TAKEDOWN_SHEET = "Takedown";
@@ -144,6 +144,17 @@ function readerOf(chunks: readonly RangeData[]): CellReader {
 }
 
 /**
+ * Each member's block of rows on the generated sheet, by mark.
+ * @param plan - the plan written
+ * @param model - the model it was planned from
+ */
+export function rowsByMemberOf(plan: SheetPlan, model: BuiltTakedown["model"]): Record<string, MemberRows> {
+  const out: Record<string, MemberRows> = {};
+  for (const p of plan.places) out[model.members[p.member]!.mark] = { row: p.row, rows: p.rows };
+  return out;
+}
+
+/**
  * Build the takedown: read the tables, check and order the load path, write the generated sheet
  * (rebuilt in place when it is the add-in's own; a user's sheet of that name is never replaced
  * unless `replaceForeign`), and read the results back.
@@ -188,5 +199,6 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   const summary = summarize(json, planned.plan, planned.model, planned.levels);
   await report(progress, 1, "Done");
   // Every flexural member of a takedown rests on two supports, so the hand-off writer spells all of them.
-  return { ok: true, problems, summary, json, sheet, ...(writer ? { valueOnly: [] } : {}) };
+  const built: BuiltTakedown = { model: planned.model, plan: planned.plan, rowsByMember: rowsByMemberOf(planned.plan, planned.model) };
+  return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly: [] } : {}) };
 };

@@ -47,6 +47,29 @@ interface Rect {
 
 type Op = () => void;
 
+/** A selection handler registered through the fake, and where (null = the worksheet collection). */
+export interface FakeSelectionHandler {
+  readonly sheet: string | null;
+  readonly handler: (args: { address: string; worksheetId: string; type: string }) => Promise<unknown>;
+  removed: boolean;
+}
+
+/** A picture placed through the fake's shapes API. */
+export interface FakeShape {
+  readonly sheet: string;
+  name: string;
+  left: number;
+  top: number;
+  width: number;
+  height: number;
+  readonly image: string;
+  deleted: boolean;
+}
+
+/** Points per column and per row of the fake's grid (for a cell's left and top). */
+export const FAKE_COL_PT = 64;
+export const FAKE_ROW_PT = 20;
+
 /** The backend workbook plus the fake `Excel` global over it. */
 export class FakeExcel {
   readonly sheets = new Map<string, Map<string, unknown>>();
@@ -60,6 +83,10 @@ export class FakeExcel {
   selection: { sheet: string; address: string } | null = null;
   activeSheet: string | null = null;
   eventsOn = true;
+  /** Selection handlers registered (with whether they were removed). */
+  readonly selectionHandlers: FakeSelectionHandler[] = [];
+  /** Pictures added through worksheet.shapes. */
+  readonly shapes: FakeShape[] = [];
   private queue: Op[] = [];
   private mocks: OfficeMockObject[] = [];
   private suspendedThisBatch = false;
@@ -90,9 +117,42 @@ export class FakeExcel {
     return JSON.stringify([...(this.sheets.get(sheet) ?? new Map()).entries()].sort());
   }
 
-  /** The global to stub as `Excel`. */
+  /** The id Excel would give a sheet (the fake derives it from the name). */
+  idOf(sheet: string): string {
+    return `{id:${sheet}}`;
+  }
+
+  private sheetOfId(key: string): string | undefined {
+    const m = /^\{id:(.*)\}$/.exec(key);
+    const name = m ? m[1]! : key;
+    return this.sheets.has(name) ? name : undefined;
+  }
+
+  /** Raise the selection event as Excel would when the user selects `address` on `sheet`. */
+  async fireSelection(sheet: string, address: string): Promise<void> {
+    const args = { address, worksheetId: this.idOf(sheet), type: "WorksheetSelectionChanged" };
+    for (const h of this.selectionHandlers) if (!h.removed && (h.sheet === null || h.sheet === sheet)) await h.handler(args);
+  }
+
+  /** The global to stub as `Excel` (run(batch), or run(context, batch) as for removing handlers). */
   excel(): unknown {
-    return { run: async <T>(batch: (context: unknown) => Promise<T>): Promise<T> => batch(this.context()) };
+    return {
+      run: async <T>(a: unknown, b?: (context: unknown) => Promise<T>): Promise<T> => {
+        const batch = (typeof a === "function" ? a : b) as (context: unknown) => Promise<T>;
+        return batch(this.context());
+      },
+    };
+  }
+
+  private selectionEvents(sheet: string | null): unknown {
+    const fake = this;
+    return {
+      add: (handler: FakeSelectionHandler["handler"]) => {
+        const entry: FakeSelectionHandler = { sheet, handler, removed: false };
+        fake.queue.push(() => fake.selectionHandlers.push(entry));
+        return { context: {}, remove: () => fake.queue.push(() => (entry.removed = true)) };
+      },
+    };
   }
 
   private context(): unknown {
@@ -148,6 +208,10 @@ export class FakeExcel {
       application: {
         suspendApiCalculationUntilNextSync: () => fake.queue.push(() => (fake.suspendedThisBatch = true)),
       },
+      getSelectedRange: () => {
+        const sel = fake.selection ?? { sheet: [...fake.sheets.keys()][0]!, address: "A1" };
+        return fake.rangeMock(rectOf(sel.sheet, sel.address));
+      },
       tables: this.collection(
         () => fake.tables.map((t) => fake.tableMock(t)),
         {
@@ -164,7 +228,11 @@ export class FakeExcel {
             if (!fake.sheets.has(name) && !fake.addedSheets.includes(name)) throw new Error(`ItemNotFound: ${name}`);
             return fake.sheetMock(name);
           },
-          getItemOrNullObject: (name: string) => (fake.sheets.has(name) ? fake.sheetMock(name) : fake.track({ isNullObject: true })),
+          getItemOrNullObject: (key: string) => {
+            const name = fake.sheetOfId(key);
+            return name !== undefined ? fake.sheetMock(name) : fake.track({ isNullObject: true });
+          },
+          onSelectionChanged: fake.selectionEvents(null),
           add: (name: string) => {
             fake.addedSheets.push(name);
             fake.queue.push(() => fake.sheets.set(name, new Map()));
@@ -205,6 +273,10 @@ export class FakeExcel {
     return this.track({
       isNullObject: false,
       name,
+      id: fake.idOf(name),
+      onSelectionChanged: fake.selectionEvents(name),
+      shapes: fake.shapesOf(name),
+      getCell: (row: number, col: number) => fake.rangeMock({ sheet: name, top: row, left: col, rows: 1, cols: 1 }),
       activate: () => fake.queue.push(() => (fake.activeSheet = name)),
       getRange: (address?: string) => fake.rangeMock(address === undefined ? { sheet: name, top: 0, left: 0, rows: 1048576, cols: 16384 } : rectOf(name, address)),
       getRangeByIndexes: (top: number, left: number, rows: number, cols: number) => fake.rangeMock({ sheet: name, top, left, rows, cols }),
@@ -214,6 +286,24 @@ export class FakeExcel {
         return used ? fake.rangeMock(used) : fake.track({ isNullObject: true, address: "" });
       },
     });
+  }
+
+  private shapesOf(sheet: string): unknown {
+    const fake = this;
+    return {
+      addImage: (image: string) => {
+        const shape: FakeShape = { sheet, name: "", left: 0, top: 0, width: 0, height: 0, image, deleted: false };
+        const staged = { ...shape };
+        fake.queue.push(() => fake.shapes.push(Object.assign(shape, staged)));
+        return staged;
+      },
+      getItemOrNullObject: (name: string) => {
+        const found = fake.shapes.find((x) => x.sheet === sheet && x.name === name && !x.deleted);
+        const mock = fake.track<OfficeMockObject>({ isNullObject: found === undefined });
+        Object.assign(mock, { delete: () => fake.queue.push(() => found && (found.deleted = true)) });
+        return mock;
+      },
+    };
   }
 
   private usedRect(sheet: string): Rect | null {
@@ -244,6 +334,8 @@ export class FakeExcel {
     const mock = this.track<OfficeMockObject>({
       isNullObject: false,
       address,
+      left: r.left * FAKE_COL_PT,
+      top: r.top * FAKE_ROW_PT,
       values: this.valuesOf(r),
       select: () => fake.queue.push(() => (fake.selection = { sheet: r.sheet, address: address.split("!")[1]! })),
       clear: () =>
