@@ -4,7 +4,7 @@
  * call this; it calls only the workbook port (never `Excel.run`), so the same pane runs against
  * Excel and against the in-memory workbook of the demo page.
  */
-import type { TableInfo, WorkbookPort } from "../workbook/port";
+import type { CellSelection, PictureInput, TableInfo, WorkbookPort } from "../workbook/port";
 import type { BuildTakedown, ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../workbook/takedown-api";
 import { detectRoles, type TableRole } from "./schema";
 
@@ -162,5 +162,35 @@ export class PaneSession {
   /** Select a problem's cell in the workbook and bring it into view. */
   async show(problem: Problem): Promise<void> {
     await this.port.select(problem.sheet, problem.cell);
+  }
+
+  /** True when the workbook tells the pane where the selection moves. */
+  followsSelection(): boolean {
+    return typeof this.port.onSelectionChanged === "function" && (this.port.followsSelection?.() ?? false);
+  }
+
+  /**
+   * Follow the active cell; resolves to the function that stops following.
+   * @throws Error when the workbook does not report selection changes (see {@link followsSelection})
+   */
+  async watchSelection(handler: (selection: CellSelection) => void): Promise<() => void> {
+    if (!this.port.onSelectionChanged) throw new Error("This workbook does not report selection changes.");
+    return this.port.onSelectionChanged(handler);
+  }
+
+  /** The active cell now, or null when the workbook cannot tell. */
+  async activeCell(): Promise<CellSelection | null> {
+    return this.port.activeCell ? this.port.activeCell() : null;
+  }
+
+  /** True when pictures can be placed on the add-in's sheet. */
+  canInsertPicture(): boolean {
+    return typeof this.port.insertPicture === "function" && (this.port.canInsertPicture?.() ?? false);
+  }
+
+  /** Place a picture on the generated sheet (the add-in's own; the port refuses any other). */
+  async insertPicture(picture: PictureInput): Promise<void> {
+    if (!this.port.insertPicture) throw new Error("This workbook cannot take pictures from the pane.");
+    await this.port.insertPicture(this.sheetName, picture);
   }
 }

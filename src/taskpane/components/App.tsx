@@ -21,6 +21,7 @@ import {
 import type { ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../../workbook/takedown-api";
 import { missingColumns, ROLE_TITLES, type TableRole } from "../schema";
 import type { PaneSession, ScanResult, TableChoice } from "../session";
+import { DiagramsView } from "./Diagrams";
 import { ColumnMatcher, TablePicker, UnitsPicker } from "./Inputs";
 import { ProblemList, SummaryView } from "./Results";
 
@@ -40,7 +41,7 @@ const useStyles = makeStyles({
   },
   title: { margin: 0, fontSize: tokens.fontSizeBase500, fontWeight: tokens.fontWeightSemibold },
   main: { display: "flex", flexDirection: "column", rowGap: tokens.spacingVerticalL, padding: tokens.spacingHorizontalM },
-  section: { display: "flex", flexDirection: "column", rowGap: tokens.spacingVerticalS },
+  section: { display: "flex", flexDirection: "column", rowGap: tokens.spacingVerticalS, minWidth: 0 },
   h2: { margin: 0, fontSize: tokens.fontSizeBase400, fontWeight: tokens.fontWeightSemibold },
   buildRow: { display: "flex", flexWrap: "wrap", columnGap: tokens.spacingHorizontalS, rowGap: tokens.spacingVerticalS, alignItems: "center" },
   caution: { padding: tokens.spacingHorizontalM, color: tokens.colorNeutralForeground2, fontSize: tokens.fontSizeBase200 },
@@ -243,6 +244,12 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                       : `Hand-off version: written as values (not live): ${result.valueOnly.map((v) => `${v.mark} (${v.reason})`).join("; ")}.`}
                   </Text>
                 ) : null}
+              </section>
+            ) : null}
+            {result?.ok && result.built && result.json ? (
+              <section className={styles.section} aria-labelledby="lp-diagrams">
+                <h2 id="lp-diagrams" className={styles.h2}>5. Member diagrams</h2>
+                <DiagramsView session={session} built={result.built} json={result.json} />
               </section>
             ) : null}
           </>

@@ -1,0 +1,208 @@
+/**
+ * From a member's loads as the takedown sheet computed them (src/engine/takedown/member-loads.ts)
+ * to the drawing's input (src/taskpane/diagrams): one load case, or a load combination whose
+ * factors multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
+ * src/engine/loads/combinations.ts). Pure: no DOM, no workbook.
+ */
+import { combinationsOf } from "../engine/loads/combinations";
+import { isFlexural } from "../engine/takedown/model";
+import type { ChannelKey } from "../engine/takedown/layout";
+import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
+import type { LoadCase, UnitSystem } from "../engine/takedown/types";
+import { solveDrawing } from "./diagrams/model";
+import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "./diagrams/types";
+
+/** A load case or a combination the pane can draw. */
+export interface CaseChoice {
+  /** Stable key for the selector: the case ("D") or "combo:" + the combination text. */
+  readonly key: string;
+  /** What the drawing's title shows: "D" or "1.2D + 1.6L". */
+  readonly label: string;
+  /** Factor of each load case (a single case has factor 1 on itself). */
+  readonly factors: Readonly<Partial<Record<LoadCase, number>>>;
+  /** True for combinations (live load reduction applies to them, not to a single case). */
+  readonly combination: boolean;
+  /** The combination's terms as the standard writes them ("1.6L"); one term for a single case. */
+  readonly terms: readonly { readonly load: LoadCase; readonly text: string }[];
+}
+
+/** Drawing units of a takedown's unit system. */
+export function drawingUnitsOf(units: UnitSystem): DrawingUnits {
+  return units === "SI" ? SI_UNITS : US_UNITS;
+}
+
+/** The takedown's load cases as choices, in the takedown's order. */
+export function caseChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
+  return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 }, combination: false, terms: [{ load: c, text: c }] }));
+}
+
+/**
+ * The gravity combinations of ASCE/SEI 7-22 Sec. 2.3.1 (strength design, no wind or seismic
+ * term) for the cases a takedown carries: terms of absent cases dropped, duplicates merged,
+ * single-case rows kept only when they carry a factor other than 1 (1.4D).
+ * @param cases - load cases of the takedown
+ */
+export function combinationChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
+  const present = new Set<string>(cases);
+  const seen = new Set<string>();
+  const out: CaseChoice[] = [];
+  for (const c of combinationsOf({ method: "LRFD", halfLive: false })) {
+    if (c.terms.some((t) => t.load === "W" || t.load === "E")) continue;
+    const terms = c.terms.filter((t) => present.has(t.load) && t.factor !== 0);
+    if (terms.length === 0 || (terms.length === 1 && terms[0]!.factor === 1)) continue;
+    const label = terms.map((t) => t.text).join(" + ");
+    if (seen.has(label)) continue;
+    seen.add(label);
+    const factors: Partial<Record<LoadCase, number>> = {};
+    for (const t of terms) factors[t.load as LoadCase] = (factors[t.load as LoadCase] ?? 0) + t.factor;
+    out.push({ key: `combo:${label}`, label, factors, combination: true, terms: terms.map((t) => ({ load: t.load as LoadCase, text: t.text })) });
+  }
+  return out;
+}
+
+/**
+ * The factor a combination puts on each channel of a member, with the member's live load
+ * reduction (ASCE/SEI 7-22 Sec. 4.7) on the reducible part of L for combinations:
+ * L_effective = L - Lred + factor x Lred when the takedown carries Lred apart, factor x L when all
+ * live load is reducible.
+ */
+function channelFactors(member: MemberLoads, choice: CaseChoice): Partial<Record<ChannelKey, number>> {
+  const out: Partial<Record<ChannelKey, number>> = { ...choice.factors };
+  const fL = choice.factors.L ?? 0;
+  const llr = member.liveReduction?.llrFactor;
+  if (!choice.combination || fL === 0 || llr === undefined || !Number.isFinite(llr) || llr >= 1) return out;
+  if (member.reducibleLive === "L") out.L = fL * llr;
+  else if (member.reducibleLive === "Lred") out.Lred = fL * (llr - 1);
+  return out;
+}
+
+/** The live load reduction factor applied to a combination's L on this member (1 when none). */
+export function appliedLiveReduction(member: MemberLoads, choice: CaseChoice): number {
+  const llr = member.liveReduction?.llrFactor;
+  if (!choice.combination || !(choice.factors.L ?? 0) || llr === undefined || !Number.isFinite(llr) || member.reducibleLive === null) return 1;
+  return Math.min(1, llr);
+}
+
+/** Sum of factor x magnitude over the channels (NaN when a needed channel is not a number). */
+export function combine(magnitudes: Readonly<Partial<Record<ChannelKey, number>>>, factors: Readonly<Partial<Record<ChannelKey, number>>>): number {
+  let total = 0;
+  for (const [key, f] of Object.entries(factors) as [ChannelKey, number][]) {
+    const v = magnitudes[key];
+    if (f !== 0 && v !== undefined) total += f * v;
+  }
+  return total;
+}
+
+/** A member's reaction at support k under a choice, from the sheet's per-case reactions. */
+export function combinedReaction(member: MemberLoads, choice: CaseChoice, k: number): number {
+  const per: Partial<Record<ChannelKey, number>> = {};
+  for (const [key, values] of Object.entries(member.reactions) as [ChannelKey, readonly number[]][]) per[key] = values[k] ?? 0;
+  return combine(per, channelFactors(member, choice));
+}
+
+function fmt(n: number): string {
+  return Number.isInteger(n) ? String(n) : String(Number(n.toPrecision(4)));
+}
+
+/** A zone row's name: the zone, with the extra line loads it includes ("OFFICE + wD", or "wD" alone). */
+export function zoneText(zone: string | null, extras: readonly LoadCase[]): string {
+  return [...(zone ? [zone] : []), ...extras.map((c) => `w${c}`)].join(" + ");
+}
+
+/** Few words for where a line or point load comes from. */
+function originText(load: AppliedLoad): string {
+  const o = load.origin;
+  if (o.kind === "zone") return zoneText(o.zone, o.extras);
+  if (o.kind === "loadsRow") return `Loads row ${o.row}`;
+  if (o.kind === "selfWeight") return "self weight";
+  return o.mark;
+}
+
+function supportLabel(s: MemberLoads["supports"][number], units: DrawingUnits): string {
+  return s.at !== null && Number.isFinite(s.at) ? `${s.mark} @ ${fmt(s.at)} ${units.length}` : s.mark;
+}
+
+/**
+ * A combination as it reads on one member: terms of cases that put no load on it are left out
+ * of the label ("1.2D + 1.6L + 0.5Lr" on a floor beam reads "1.2D + 1.6L"); the factors, and so
+ * every number, are unchanged.
+ * @param choice - a case or combination
+ * @param member - the member's loads
+ */
+export function choiceOnMember(choice: CaseChoice, member: MemberLoads): CaseChoice {
+  if (!choice.combination) return choice;
+  const carries = (c: LoadCase): boolean => (member.reactions[c] ?? []).some((v) => v !== 0);
+  const kept = choice.terms.filter((t) => carries(t.load));
+  return kept.length === 0 || kept.length === choice.terms.length ? choice : { ...choice, label: kept.map((t) => t.text).join(" + ") };
+}
+
+/** The label of a choice on one member: the combination text, and the live load reduction applied. */
+export function choiceLabel(member: MemberLoads, choice: CaseChoice): string {
+  const r = appliedLiveReduction(member, choice);
+  return r < 1 ? `${choice.label}, L \u00D7 ${r.toFixed(2)}` : choice.label;
+}
+
+/**
+ * The drawing of a beam, girder or joist under a case or combination: its supports (labelled
+ * with what holds it up), its line loads over their intervals and the reactions and point loads
+ * it receives, each magnitude the sheet's per-case value times the choice's factor.
+ * @param member - the member's loads from the computed takedown sheet
+ * @param choice - a case or combination
+ * @param units - the takedown's unit system
+ * @returns the drawing, or null for a member that does not bend (column, wall, foundation) or has no length
+ */
+export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: UnitSystem): MemberDrawing | null {
+  if (!isFlexural(member.type) || member.length === null || !(member.length > 0)) return null;
+  const u = drawingUnitsOf(units);
+  const factors = channelFactors(member, choice);
+  const supports: DrawnSupport[] = member.supports.map((s) => ({ x: s.x ?? 0, type: "pin" as const, label: supportLabel(s, u) }));
+  const lines: DrawnLineLoad[] = [];
+  const points: DrawnPointLoad[] = [];
+  for (const load of member.loads) {
+    const w = combine(load.magnitudes, factors);
+    if (w === 0 || load.start === null) continue;
+    if (load.kind === "line") lines.push({ start: load.start, end: load.end ?? member.length, w1: w, w2: w, label: originText(load) });
+    else points.push({ x: load.start, p: w, from: originText(load) });
+  }
+  return {
+    mark: member.mark,
+    memberType: member.type,
+    level: member.level,
+    span: member.length,
+    units: u,
+    supports,
+    lines,
+    points,
+    moments: [],
+    caseLabel: choiceLabel(member, choice),
+  };
+}
+
+/** Largest bending moment magnitude of a drawing, by the exact beam engine (NaN when it cannot be solved). */
+export function largestMoment(drawing: MemberDrawing): number {
+  const solved = solveDrawing(drawing);
+  if (!solved.ok) return Number.NaN;
+  return Math.max(solved.value.maxSagging().value, -solved.value.maxHogging().value);
+}
+
+/**
+ * The governing combination of a member: for a beam, the one with the largest bending moment
+ * (exact beam engine, every combination solved); for a column, wall or foundation the one with
+ * the largest total load. Ties go to the first in the standard's order.
+ * @param member - the member's loads
+ * @param combinations - from {@link combinationChoicesOf}
+ * @param units - the takedown's unit system
+ */
+export function governingChoice(member: MemberLoads, combinations: readonly CaseChoice[], units: UnitSystem): CaseChoice | null {
+  let best: CaseChoice | null = null;
+  let bestValue = Number.NEGATIVE_INFINITY;
+  for (const c of combinations) {
+    const drawing = memberDrawingOf(member, c, units);
+    const value = drawing ? largestMoment(drawing) : combinedReaction(member, c, 0) + combinedReaction(member, c, 1);
+    if (Number.isFinite(value) && value > bestValue) {
+      best = c;
+      bestValue = value;
+    }
+  }
+  return best;
+}

@@ -1,0 +1,205 @@
+/**
+ * What the pane draws for a member, from a takedown built in the headless workbook: the invented
+ * framing of test/report/framing.ts with its hand statics (written out there, never taken from
+ * the engine). Checked: the drawing's reactions (solved by the exact beam engine from the loads
+ * read back from the sheet) against the hand reactions per case and under a combination with
+ * the member's live load reduction; the girder's received loads at their positions; the load
+ * path's edges; the cells read lazily (only the rows a member needs, same loads as reading the
+ * whole sheet); the combination list; which cell stands for which member.
+ * Needs `npm run build` (the headless engine loads the built functions bundle).
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import { memberLoads } from "../../src/engine/takedown/member-loads";
+import type { CellValue } from "../../src/engine/takedown";
+import { solveDrawing } from "../../src/taskpane/diagrams/model";
+import { loadPathOf, upstreamMarks } from "../../src/taskpane/load-path-of";
+import { caseChoicesOf, choiceOnMember, combinationChoicesOf, governingChoice, largestMoment, memberDrawingOf, type CaseChoice } from "../../src/taskpane/member-drawing";
+import { memberAt, selectionIndexOf } from "../../src/taskpane/selection-map";
+import { rowRuns, TakedownCells } from "../../src/taskpane/takedown-cells";
+import type { MemoryWorkbookPort } from "../../src/workbook/memory-port";
+import type { BuiltTakedown, TakedownJson } from "../../src/workbook/takedown-api";
+import { buildOn } from "../workbook/takedown-helpers";
+import { framingSheets, handFraming } from "../report/framing";
+
+const hand = handFraming();
+let port: MemoryWorkbookPort;
+let built: BuiltTakedown;
+let json: TakedownJson;
+let cells: TakedownCells;
+const reads: string[] = [];
+
+const near = (a: number | undefined, b: number): void => {
+  expect(a).toBeTypeOf("number");
+  expect(Math.abs(a! - b)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(b)));
+};
+
+beforeAll(async () => {
+  const b = await buildOn(framingSheets());
+  expect(b.result.problems).toEqual([]);
+  port = b.port;
+  built = b.result.built!;
+  json = b.result.json!;
+  // Count the reads the drawings make through the port.
+  const counting = Object.create(port) as MemoryWorkbookPort;
+  counting.readTable = async (ref: string) => {
+    reads.push(ref);
+    return port.readTable(ref);
+  };
+  cells = new TakedownCells(counting, built);
+});
+
+const choice = (label: string): CaseChoice => [...caseChoicesOf(built.model.cases), ...combinationChoicesOf(built.model.cases)].find((c) => c.label === label)!;
+
+function reactionsOf(mark: string, c: CaseChoice): number[] {
+  const drawing = memberDrawingOf(cells.loadsOf(mark)!, c, "US")!;
+  const solved = solveDrawing(drawing);
+  if (!solved.ok) throw new Error(solved.error.message);
+  return [...solved.value.reactions];
+}
+
+describe("the member drawing", () => {
+  it("reads only the rows a member needs, and gives the same loads as the whole sheet", async () => {
+    await cells.ensure(["B1"]);
+    expect(reads).toHaveLength(1);
+    const rows = built.rowsByMember.B1!;
+    expect(reads[0]).toBe(`Takedown!A${rows.row + 1}:${reads[0]!.split(":")[1]}`);
+    const whole = port.hf.getSheetValues(port.hf.getSheetId("Takedown")!);
+    const full = memberLoads({ ...cells.source(), read: (r, c) => whole[r]?.[c] as CellValue | undefined }, "B1");
+    expect(cells.loadsOf("B1")).toEqual(full);
+    await cells.ensure(["B1"]);
+    expect(reads).toHaveLength(1); // kept once read
+    expect(cells.loadsOf("G1")).toBeNull(); // not read yet
+  });
+
+  it("draws a beam's loads so that its reactions are the hand reactions, per case", async () => {
+    await cells.ensure(["B1"]);
+    const d = reactionsOf("B1", choice("D"));
+    near(d[0], hand.B1.D.left);
+    near(d[1], hand.B1.D.right);
+    const l = reactionsOf("B1", choice("L"));
+    near(l[0], hand.B1.L.left);
+    near(l[1], hand.B1.L.right);
+    const drawing = memberDrawingOf(cells.loadsOf("B1")!, choice("D"), "US")!;
+    expect(drawing.supports.map((s) => s.label)).toEqual(["G1 @ 10 ft", "G2 @ 10 ft"]);
+    expect(drawing.lines.map((x) => x.label)).toEqual(["OFF + wD"]);
+    near(largestMoment(drawing), hand.B1.D.mMax);
+  });
+
+  it("factors a combination's cases and reduces the reducible live load by the member's factor (ASCE/SEI 7-22 Sec. 2.3.1, 4.7)", async () => {
+    await cells.ensure(["B1"]);
+    const b1 = cells.loadsOf("B1")!;
+    const combo = choiceOnMember(choice("1.2D + 1.6L"), b1);
+    const drawing = memberDrawingOf(b1, combo, "US")!;
+    expect(drawing.caseLabel).toBe(`1.2D + 1.6L, L \u00D7 ${hand.B1.llr.toFixed(2)}`);
+    const r = reactionsOf("B1", combo);
+    // The zone's live load is reducible; the Loads-table strip is not (framing.ts).
+    const zoneL = (hand.b1.wL * hand.span) / 2;
+    near(r[0], 1.2 * hand.B1.D.left + 1.6 * (hand.B1.L.left - (1 - hand.B1.llr) * zoneL));
+    near(r[1], 1.2 * hand.B1.D.right + 1.6 * (hand.B1.L.right - (1 - hand.B1.llr) * zoneL));
+  });
+
+  it("draws the reactions a girder receives at their positions, from the members they come from", async () => {
+    await cells.ensure(["G1"]);
+    const drawing = memberDrawingOf(cells.loadsOf("G1")!, choice("D"), "US")!;
+    expect(drawing.points.map((p) => [p.from, p.x])).toEqual([
+      ["B1", 10],
+      ["B2", 18],
+    ]);
+    near(drawing.points[0]!.p, hand.B1.D.left);
+    near(drawing.points[1]!.p, hand.B2.D.left);
+    const r = reactionsOf("G1", choice("D"));
+    near(r[0], hand.G1.D.left);
+    near(r[1], hand.G1.D.right);
+  });
+
+  it("has no bending drawing for a column, and picks the combination with the largest moment", async () => {
+    await cells.ensure(["C1", "B2"]);
+    expect(memberDrawingOf(cells.loadsOf("C1")!, choice("D"), "US")).toBeNull();
+    const combos = combinationChoicesOf(built.model.cases);
+    const b2 = cells.loadsOf("B2")!;
+    const best = governingChoice(b2, combos, "US")!;
+    const moments = combos.map((c) => largestMoment(memberDrawingOf(b2, c, "US")!));
+    expect(largestMoment(memberDrawingOf(b2, best, "US")!)).toBe(Math.max(...moments));
+  });
+});
+
+describe("the combination list", () => {
+  it("keeps the gravity combinations of the cases present, without wind or seismic rows (ASCE/SEI 7-22 Sec. 2.3.1, recalled from memory)", () => {
+    expect(combinationChoicesOf(["D", "L"]).map((c) => c.label)).toEqual(["1.4D", "1.2D + 1.6L", "1.2D + L"]);
+    expect(combinationChoicesOf(["D", "L", "Lr", "S"]).map((c) => c.label)).toEqual([
+      "1.4D",
+      "1.2D + 1.6L + 0.5Lr",
+      "1.2D + 1.6L + 0.3S",
+      "1.2D + 1.6L",
+      "1.2D + 1.6Lr + L",
+      "1.2D + 1.0S + L",
+      "1.2D + L",
+    ]);
+    expect(combinationChoicesOf(["D", "L"])[1]!.factors).toEqual({ D: 1.2, L: 1.6 });
+  });
+});
+
+describe("the load path", () => {
+  it("sends a beam's reactions to its girders and on to columns and footings, and shows what a girder carries", async () => {
+    await cells.ensure(["B1", "G1", ...upstreamMarks(built.model, cells.path, "G1", 60)]);
+    const source = { model: built.model, deliveries: cells.path, json, loadsOf: (m: string) => cells.loadsOf(m) };
+    const tree = loadPathOf(source, cells.loadsOf("B1")!, choice("D"));
+    expect(tree.downstream.map((b) => [b.mark, b.note, b.at])).toEqual([
+      ["G1", "start", 10],
+      ["G2", "end", 10],
+    ]);
+    near(tree.downstream[0]!.value, hand.B1.D.left);
+    const g1 = tree.downstream[0]!;
+    expect(g1.children.map((c) => c.mark)).toEqual(["C1", "C2"]);
+    near(g1.children[0]!.value, hand.G1.D.left);
+    expect(g1.children[0]!.children.map((c) => c.mark)).toEqual(["F1"]);
+    near(g1.children[0]!.children[0]!.value, hand.columns.C1.D);
+    const up = loadPathOf(source, cells.loadsOf("G1")!, choice("D")).upstream;
+    const fromB1 = up.find((b) => b.mark === "B1")!;
+    near(fromB1.value, hand.B1.D.left);
+    expect(fromB1.at).toBe(10);
+    // B1's own loads are leaves under it: its zone row over the trib width.
+    expect(fromB1.children.map((c) => [c.mark, c.memberType, c.note])).toEqual([["OFF + wD", "zone", "trib 10 ft"]]);
+    near(fromB1.children[0]!.value, hand.b1.wD);
+  });
+
+  it("reads the nearest upstream members first, up to the limit", () => {
+    expect(upstreamMarks(built.model, cells.path, "C1", 10)).toEqual(["G1", "B1", "B2"]);
+    expect(upstreamMarks(built.model, cells.path, "F1", 2)).toEqual(["C1", "G1"]);
+  });
+});
+
+describe("which member a cell stands for", () => {
+  it("maps a cell of a member's row in the Members table or of its block on the takedown sheet", () => {
+    const index = selectionIndexOf(built);
+    // Members sheet: header on row 1, B1 on row 2, G1 on row 4 (framing.ts).
+    expect(memberAt(index, { sheet: "Members", address: "F2" })).toEqual({ mark: "B1", where: "members" });
+    expect(memberAt(index, { sheet: "members", address: "$A$4" })).toEqual({ mark: "G1", where: "members" });
+    expect(memberAt(index, { sheet: "Members", address: "A1" })).toBeNull();
+    // The generated sheet as a user reads it: the row whose column A holds the mark, and the rows below it in its block.
+    const values = port.hf.getSheetValues(port.hf.getSheetId("Takedown")!);
+    const g1 = values.findIndex((r) => r[0] === "G1");
+    const rows = built.rowsByMember.G1!;
+    expect(rows.row).toBe(g1);
+    expect(rows.rows).toBeGreaterThan(1);
+    expect(memberAt(index, { sheet: "Takedown", address: `Q${g1 + 1}` })).toEqual({ mark: "G1", where: "takedown" });
+    expect(memberAt(index, { sheet: "Takedown", address: `B${g1 + rows.rows}` })).toEqual({ mark: "G1", where: "takedown" });
+    expect(memberAt(index, { sheet: "Takedown", address: "A1" })).toBeNull();
+    expect(memberAt(index, { sheet: "Zones", address: "A2" })).toBeNull();
+  });
+
+  it("merges needed rows into few reads", () => {
+    expect(rowRuns([5, 6, 7, 30, 100, 101], 40, 2000)).toEqual([
+      [5, 30],
+      [100, 101],
+    ]);
+    expect(rowRuns([1, 3], 0, 2000)).toEqual([
+      [1, 1],
+      [3, 3],
+    ]);
+    expect(rowRuns([0, 10, 20], 40, 15)).toEqual([
+      [0, 10],
+      [20, 20],
+    ]);
+  });
+});
