@@ -16,7 +16,9 @@ const FUNCTION_SOURCES = ["./src/functions/beam-functions.ts", "./src/functions/
 /** Entry of the demo page (the pane over the in-memory workbook, with a sample building). */
 const DEMO_ENTRY = "./src/taskpane-demo/demo.ts";
 /** The sample building the demo page opens, turned into JSON at build time. */
-const DEMO_SAMPLE = process.env.LOADPATH_DEMO_SAMPLE || "sample-workbooks/takedown-sample.xlsx";
+const DEMO_SAMPLE = process.env.LOADPATH_DEMO_SAMPLE || "sample-workbooks/steel-office-us.xlsx";
+/** The SI sample building, opened by pane-demo.html?sample=timber. */
+const DEMO_SAMPLE_SI = "sample-workbooks/timber-house-si.xlsx";
 
 const DEV_URL = "https://localhost:3000/";
 const PROD_URL = process.env.LOADPATH_URL || "https://localhost:3000/";
@@ -143,6 +145,15 @@ module.exports = async (env, argv) => {
                 transform: { transformer: (content) => require("./src/taskpane-demo/sample-json.cjs").xlsxToJson(content), cache: false },
               }
             : { from: "src/taskpane-demo/demo-building.json", to: "samples/takedown-sample.json" },
+          ...(fs.existsSync(path.resolve(__dirname, DEMO_SAMPLE_SI))
+            ? [
+                {
+                  from: DEMO_SAMPLE_SI,
+                  to: "samples/takedown-sample-si.json",
+                  transform: { transformer: (content) => require("./src/taskpane-demo/sample-json.cjs").xlsxToJson(content), cache: false },
+                },
+              ]
+            : []),
         ],
       }),
     ],

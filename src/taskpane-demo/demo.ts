@@ -3,14 +3,23 @@
  * workbook (HyperFormula with the built LOADPATH functions) holding a sample building. It says
  * it is not connected to Excel; settings live in the browser's localStorage; the cell a problem
  * selects is shown under the notice, since there is no grid to select it in.
- * `?sample=mistakes` loads the same building with an unknown support and a cycle.
+ * `?sample=mistakes` loads the same building with an unknown support and a cycle; `?sample=timber`
+ * the SI sample (a timber house). A labelled panel stands in for Excel's selection.
  */
 import { mountPane, showStartupError } from "../taskpane/mount";
 import type { WorkbookPort } from "../workbook/port";
 import { buildTakedown } from "../workbook/takedown-build";
 import { withStoredSettings } from "./local-settings";
 import { registerFunctionsInPage } from "./register";
-import { loadSample, openSample, SAMPLE_FILE, withMistakes } from "./sample";
+import { loadSample, openSample, SAMPLE_FILE, SAMPLE_FILE_SI, withMistakes } from "./sample";
+import { selectionStandIn } from "./selection-standin";
+
+type Variant = "building" | "mistakes" | "timber";
+
+function variantOf(search: string): Variant {
+  const v = new URLSearchParams(search).get("sample");
+  return v === "mistakes" || v === "timber" ? v : "building";
+}
 
 /** Record the cell each selection goes to, and show it on the page. */
 function showingSelection(port: WorkbookPort, out: HTMLElement): WorkbookPort {
@@ -32,11 +41,16 @@ async function start(): Promise<void> {
   selected.setAttribute("aria-live", "polite");
   selected.dataset.testid = "demo-selected";
   try {
-    const variant = new URLSearchParams(location.search).get("sample") === "mistakes" ? "mistakes" : "building";
-    const [bundle, sample] = await Promise.all([registerFunctionsInPage(), loadSample(`samples/${SAMPLE_FILE}`)]);
-    const port = await openSample(variant === "mistakes" ? withMistakes(sample) : sample, bundle);
-    const stored = withStoredSettings(port, window.localStorage, `loadpath-demo:${variant}:`);
-    root.before(selected);
+    const variant = variantOf(location.search);
+    const file = variant === "timber" ? SAMPLE_FILE_SI : SAMPLE_FILE;
+    const [bundle, loaded] = await Promise.all([registerFunctionsInPage(), loadSample(`samples/${file}`)]);
+    const sample = variant === "mistakes" ? withMistakes(loaded) : loaded;
+    const port = await openSample(sample, bundle);
+    const prefix = `loadpath-demo:${variant}:`;
+    // The SI sample opens in SI units until the user picks otherwise.
+    if (variant === "timber" && window.localStorage.getItem(`${prefix}loadpath.units`) === null) window.localStorage.setItem(`${prefix}loadpath.units`, "SI");
+    const stored = withStoredSettings(port, window.localStorage, prefix);
+    root.before(selectionStandIn(sample, port), selected);
     mountPane(root, { port: showingSelection(stored, selected), build: buildTakedown, connected: false });
   } catch (e) {
     showStartupError(root, `The demo could not start: ${e instanceof Error ? e.message : String(e)}`);

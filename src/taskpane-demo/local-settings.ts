@@ -27,5 +27,11 @@ export function withStoredSettings(port: WorkbookPort, storage: SettingsStorage,
     flush: () => port.flush(),
     getSetting: async (key) => storage.getItem(prefix + key),
     setSetting: async (key, value) => storage.setItem(prefix + key, value),
+    // Selection and pictures, where the wrapped workbook has them.
+    ...(port.followsSelection ? { followsSelection: () => port.followsSelection!() } : {}),
+    ...(port.onSelectionChanged ? { onSelectionChanged: (handler) => port.onSelectionChanged!(handler) } : {}),
+    ...(port.activeCell ? { activeCell: () => port.activeCell!() } : {}),
+    ...(port.canInsertPicture ? { canInsertPicture: () => port.canInsertPicture!() } : {}),
+    ...(port.insertPicture ? { insertPicture: (sheet, picture) => port.insertPicture!(sheet, picture) } : {}),
   };
 }

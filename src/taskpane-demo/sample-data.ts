@@ -17,6 +17,9 @@ export interface SampleJson {
 /** The built sample served beside the demo page (dist/samples/). */
 export const SAMPLE_FILE = "takedown-sample.json";
 
+/** The SI sample building served beside the demo page (pane-demo.html?sample=timber). */
+export const SAMPLE_FILE_SI = "takedown-sample-si.json";
+
 /** A table of the sample: position, headers and body rows. */
 export interface SampleTable {
   readonly name: string;

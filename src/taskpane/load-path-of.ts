@@ -12,7 +12,7 @@ import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase } from "../engine/takedown/types";
 import type { LoadPathBranch, LoadPathTree } from "./diagrams/load-path-types";
 import type { TakedownJson } from "../workbook/takedown-api";
-import { combine, drawingUnitsOf, zoneText, type CaseChoice } from "./member-drawing";
+import { combine, drawingUnitsOf, originText, type CaseChoice } from "./member-drawing";
 
 /** Levels followed at most (the drawing stops at 24 whatever it is given). */
 const MAX_DEPTH = 24;
@@ -59,9 +59,8 @@ export function upstreamMarks(model: TakedownModel, deliveries: readonly Deliver
   return out;
 }
 
-function leafOf(load: AppliedLoad, value: number, units: ReturnType<typeof drawingUnitsOf>): LoadPathBranch {
-  const o = load.origin;
-  const mark = o.kind === "zone" ? zoneText(o.zone, o.extras) || "line loads" : o.kind === "loadsRow" ? `Loads row ${o.row}` : o.kind === "selfWeight" ? "self weight" : "load";
+function leafOf(load: AppliedLoad, value: number, factors: CaseChoice["factors"], units: ReturnType<typeof drawingUnitsOf>): LoadPathBranch {
+  const mark = originText(load, factors) || "line loads";
   const note = load.width !== null && Number.isFinite(load.width) ? `trib ${fmt(load.width)} ${units.length}` : undefined;
   return {
     mark,
@@ -79,7 +78,7 @@ function upstreamOf(source: LoadPathSource, member: MemberLoads, factors: CaseCh
   for (const load of member.loads) {
     const value = combine(load.magnitudes, factors);
     if (load.origin.kind !== "member") {
-      if (value !== 0) out.push(leafOf(load, value, units));
+      if (value !== 0) out.push(leafOf(load, value, factors, units));
       continue;
     }
     const from = load.origin;

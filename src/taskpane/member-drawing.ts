@@ -109,11 +109,19 @@ export function zoneText(zone: string | null, extras: readonly LoadCase[]): stri
   return [...(zone ? [zone] : []), ...extras.map((c) => `w${c}`)].join(" + ");
 }
 
-/** Few words for where a line or point load comes from. */
-function originText(load: AppliedLoad): string {
+/** A Loads-table row's name: "BALCONY (Loads row 3)" for an area load, "Loads row 4" otherwise. */
+export function loadsRowText(zone: string | null, row: number): string {
+  return zone ? `${zone} (Loads row ${row})` : `Loads row ${row}`;
+}
+
+/**
+ * Few words for where a line or point load comes from; a zone row names only the extra line
+ * loads of cases the choice counts ("OFFICE + wD" under D, "OFFICE" under L).
+ */
+export function originText(load: AppliedLoad, factors: Readonly<Partial<Record<ChannelKey, number>>>): string {
   const o = load.origin;
-  if (o.kind === "zone") return zoneText(o.zone, o.extras);
-  if (o.kind === "loadsRow") return `Loads row ${o.row}`;
+  if (o.kind === "zone") return zoneText(o.zone, o.extras.filter((c) => (factors[c] ?? 0) !== 0));
+  if (o.kind === "loadsRow") return loadsRowText(o.zone, o.row);
   if (o.kind === "selfWeight") return "self weight";
   return o.mark;
 }
@@ -161,8 +169,8 @@ export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: 
   for (const load of member.loads) {
     const w = combine(load.magnitudes, factors);
     if (w === 0 || load.start === null) continue;
-    if (load.kind === "line") lines.push({ start: load.start, end: load.end ?? member.length, w1: w, w2: w, label: originText(load) });
-    else points.push({ x: load.start, p: w, from: originText(load) });
+    if (load.kind === "line") lines.push({ start: load.start, end: load.end ?? member.length, w1: w, w2: w, label: originText(load, factors) });
+    else points.push({ x: load.start, p: w, from: originText(load, factors) });
   }
   return {
     mark: member.mark,

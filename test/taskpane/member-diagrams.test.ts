@@ -76,6 +76,8 @@ describe("the member drawing", () => {
     const d = reactionsOf("B1", choice("D"));
     near(d[0], hand.B1.D.left);
     near(d[1], hand.B1.D.right);
+    // Under L the zone row carries no wD, and the Loads-table strip is named by its row.
+    expect(memberDrawingOf(cells.loadsOf("B1")!, choice("L"), "US")!.lines.map((x) => x.label)).toEqual(["OFF", "Loads row 2"]);
     const l = reactionsOf("B1", choice("L"));
     near(l[0], hand.B1.L.left);
     near(l[1], hand.B1.L.right);

@@ -67,7 +67,9 @@ export function forceUnit(units: UnitSystem): string {
 export function formatTotal(value: number): string {
   if (!Number.isFinite(value)) return "—";
   const digits = Math.abs(value) >= 1000 ? 0 : Math.abs(value) >= 10 ? 1 : 2;
-  return value.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  // A round-off difference such as -5.7e-14 reads 0.00, not -0.00.
+  const shown = Math.abs(value) < 0.5 * 10 ** -digits ? 0 : value;
+  return shown.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits });
 }
 
 /** Props of {@link SummaryView}. */
