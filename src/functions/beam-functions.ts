@@ -16,6 +16,7 @@ import type { BeamSolution } from "../engine/beam/types";
 import { arg, asHostMatrix, asHostNumber, defineArgs, formatNumber, runFunction, type Grid } from "./args";
 import { beamModel, DEFLECTION_UNITS, UNITS_CHOICES, withRangeRow, type MemberInput } from "./beam-args";
 import { diagramTable } from "./diagram";
+import { MemberCache } from "./member-cache";
 import { DEFAULT_STATIONS, MAX_LOAD_ROWS, MAX_STATIONS, MAX_SUPPORT_ROWS, padToSize, shapeOfValue, spillSize } from "./spill";
 
 const SPAN = arg.number("span", { greaterThan: 0 });
@@ -46,8 +47,15 @@ interface Solved {
   readonly input: MemberInput;
 }
 
+/** Recently solved members (REACTION at each end, SHEAR_MAX and MOMENT_MAX of one member solve it once). */
+const SOLVED = new MemberCache<Result<Solved>>();
+
 /** Solve the member the arguments describe; engine errors are restated with the user's range rows. */
 function solve(a: { readonly span: number; readonly loads: number | Grid; readonly supports: Grid | undefined }): Result<Solved> {
+  return SOLVED.get(a, () => solveAnew(a));
+}
+
+function solveAnew(a: Parameters<typeof solve>[0]): Result<Solved> {
   const input = beamModel(a.span, a.loads, a.supports);
   if (!input.ok) return input;
   const solved = solveBeam(input.value.model);
