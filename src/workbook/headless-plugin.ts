@@ -113,6 +113,7 @@ export function excelErrorText(type: ErrorType): string {
 
 /** A value inside HyperFormula -> what a custom function receives. */
 function toHostCell(v: unknown): unknown {
+  if (typeof v === "number") return v;
   if (v === EmptyValue || v === undefined || v === null) return null;
   if (v instanceof CellError) return new ShimError(excelErrorText(v.type), v.message);
   if (typeof v === "object" && "val" in (v as object)) return (v as { val: unknown }).val; // a number with a format (date, percent)
@@ -121,8 +122,16 @@ function toHostCell(v: unknown): unknown {
 
 function toHostArgument(v: unknown, matrix: boolean): unknown {
   if (v instanceof SimpleRangeValue) {
-    const grid = v.data.map((row) => row.map(toHostCell));
-    if (!matrix && grid.length === 1 && grid[0]!.length === 1) return grid[0]![0];
+    const data = v.data;
+    if (!matrix && data.length === 1 && data[0]!.length === 1) return toHostCell(data[0]![0]);
+    // Plain loops: a takedown passes ~10^5 ranges.
+    const grid = new Array<unknown[]>(data.length);
+    for (let i = 0; i < data.length; i++) {
+      const row = data[i]!;
+      const out = new Array<unknown>(row.length);
+      for (let j = 0; j < row.length; j++) out[j] = toHostCell(row[j]);
+      grid[i] = out;
+    }
     return grid;
   }
   if (v === undefined) return null; // an optional argument left out
@@ -144,6 +153,27 @@ function fromHostCell(v: unknown): unknown {
 
 /** Shape of one argument of a formula before evaluation (spill.ts's input). */
 type Ast = { type: string; value?: unknown; args?: Ast[] };
+
+/** What every call of one function needs, worked out once when the plugin is built. */
+interface CallPlan {
+  readonly fm: FunctionMetadata;
+  /** "LOADPATH.<ID>". */
+  readonly fullId: string;
+  readonly fn: BundleFunction;
+  /** Per parameter: passed as a 2-D array (a matrix parameter). */
+  readonly matrix: readonly boolean[];
+  readonly matrixResult: boolean;
+}
+
+function callPlanOf(bundle: LoadedBundle, fm: FunctionMetadata): CallPlan {
+  return {
+    fm,
+    fullId: `${NAMESPACE}.${fm.id.toUpperCase()}`,
+    fn: bundle.functions.get(fm.id.toUpperCase())!,
+    matrix: fm.parameters.map((p) => p.dimensionality === "matrix"),
+    matrixResult: fm.result.dimensionality === "matrix",
+  };
+}
 
 /** The plugin class holding the calls; methods per function are added from the metadata. */
 class LoadpathPlugin extends FunctionPlugin {
@@ -170,14 +200,12 @@ class LoadpathPlugin extends FunctionPlugin {
   }
 
   /** Evaluate one call: coerce HyperFormula values to what Excel passes, call, convert back. */
-  callBundle(fm: FunctionMetadata, ast: { args: Ast[] }, state: unknown): unknown {
-    const bundle = (this.constructor as typeof LoadpathPlugin).bundle!;
-    const fullId = `${NAMESPACE}.${fm.id.toUpperCase()}`;
-    const fn = bundle.functions.get(fm.id.toUpperCase())!;
-    const matrixResult = fm.result.dimensionality === "matrix";
+  callBundle(plan: CallPlan, ast: { args: Ast[] }, state: unknown): unknown {
+    const { fm, fullId, fn, matrix, matrixResult } = plan;
     return this.runFunction(ast.args as never, state as never, this.metadata(fullId), (...args: unknown[]): never => {
       try {
-        const hostArgs = fm.parameters.map((p, i) => toHostArgument(args[i], p.dimensionality === "matrix"));
+        const hostArgs = new Array<unknown>(matrix.length);
+        for (let i = 0; i < matrix.length; i++) hostArgs[i] = toHostArgument(args[i], matrix[i]!);
         const result = fn(...hostArgs);
         return (matrixResult ? this.spillResult(fm, result, ast, state) : this.scalarResult(fm, result)) as never;
       } catch (e) {
@@ -248,8 +276,9 @@ export function pluginFor(bundle: LoadedBundle): FunctionPluginDefinition {
       vectorizationForbidden: true,
       ...(fm.result.dimensionality === "matrix" ? { sizeOfResultArrayMethod: sizeMethod } : {}),
     };
+    const plan = callPlanOf(bundle, fm);
     proto[method] = function (this: LoadpathPlugin, ast: { args: Ast[] }, state: unknown) {
-      return this.callBundle(fm, ast, state);
+      return this.callBundle(plan, ast, state);
     };
     proto[sizeMethod] = function (this: LoadpathPlugin, ast: { args: Ast[] }, state: unknown) {
       return this.spillOf(id, ast, state);
