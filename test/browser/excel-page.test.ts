@@ -5,6 +5,7 @@
  */
 import { existsSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
+import { gzipSync } from "node:zlib";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DIST, CHROMIUM, launch, serve } from "./harness";
 
@@ -31,6 +32,10 @@ describe.skipIf(!ready)("the Excel page outside Excel", () => {
   it("keeps HyperFormula and eval out of the bundle Excel loads, and office.js from the CDN in the shipped page", () => {
     const bundle = readFileSync(join(DIST, "taskpane.js"), "utf8");
     expect(bundle).not.toMatch(/hyperformula|gpl-v3/i);
+    // Size of what Excel downloads (the pane with its diagrams): well under 500 kB gzipped.
+    const gzipped = gzipSync(readFileSync(join(DIST, "taskpane.js"))).length;
+    console.log(`dist/taskpane.js: ${bundle.length} bytes, ${gzipped} bytes gzipped`);
+    expect(gzipped).toBeLessThan(500_000);
     const html = readFileSync(join(DIST, "taskpane.html"), "utf8");
     expect(html).toContain("https://appsforoffice.microsoft.com/lib/1/hosted/office.js");
     expect(html).toMatch(/Content-Security-Policy/);

@@ -115,6 +115,15 @@ async function drawnReactions(page: Page): Promise<number[]> {
   return page.$$eval('[data-testid="member-sheet"] [data-role="reaction"]', (els) => els.map((e) => Number(e.getAttribute("data-value"))));
 }
 
+/** Screenshot of the diagrams section across the whole 320 px pane width. */
+async function shoot(page: Page, file: string): Promise<void> {
+  const box = await page.$eval('section[aria-labelledby="lp-diagrams"]', (e) => {
+    const r = e.getBoundingClientRect();
+    return { y: r.top + window.scrollY, height: r.height };
+  });
+  await page.screenshot({ path: join(OUT, file), fullPage: true, clip: { x: 0, y: Math.max(0, box.y - 8), width: 320, height: box.height + 16 } });
+}
+
 async function waitFor(page: Page, mark: string, caseLabel: string): Promise<void> {
   await page.waitForSelector(`[data-testid="member-sheet"][data-mark="${mark}"][data-case="${caseLabel}"]`, { timeout: 30_000 });
 }
@@ -176,12 +185,11 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
     const widths = await page.$$eval('[data-testid="diagrams"] figure svg', (els) => els.map((e) => e.getBoundingClientRect().width));
     for (const w of widths) expect(w).toBeGreaterThan(260);
-    const section = page.locator('section[aria-labelledby="lp-diagrams"]');
-    await section.screenshot({ path: join(OUT, "pane-diagrams.png") });
+    await shoot(page, "pane-diagrams.png");
     await page.selectOption('[data-testid="case-picker"]', "D");
     await page.selectOption('[data-testid="demo-member-row"]', memberCell(BEAM));
     await waitFor(page, BEAM, "D");
-    await section.screenshot({ path: join(OUT, "pane-diagrams-beam.png") });
+    await shoot(page, "pane-diagrams-beam.png");
     expect(errors).toEqual([]);
     await page.close();
   });
@@ -238,7 +246,7 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     const supports = await page.$$eval('[data-testid="member-sheet"] [data-role="support"]', (els) => els.map((e) => Number(e.getAttribute("data-x"))));
     expect(supports).toEqual([0, 4.2]);
     expect(await page.textContent('[data-testid="member-sheet"] [data-role="case"]')).toMatch(/span 5\.4 m/);
-    await page.locator('section[aria-labelledby="lp-diagrams"]').screenshot({ path: join(OUT, "pane-diagrams-si.png") });
+    await shoot(page, "pane-diagrams-si.png");
     expect(errors).toEqual([]);
     await page.close();
   });
