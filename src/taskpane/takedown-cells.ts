@@ -15,6 +15,10 @@ import type { BuiltTakedown } from "../workbook/takedown-api";
 export const READ_ROWS_MAX = 2000;
 /** Gaps of at most this many rows between needed rows are read through rather than split. */
 const MERGE_GAP = 40;
+/** Wider gaps tried, in turn, while the reads would take more than {@link MAX_READS} requests. */
+const WIDER_GAPS = [200, 1000, READ_ROWS_MAX];
+/** Requests one drawing should take at most (each is a round trip to the host). */
+export const MAX_READS = 8;
 
 /** Merge row numbers into [first, last] runs (gaps up to `gap` joined, runs up to `max` rows). */
 export function rowRuns(rows: readonly number[], gap = MERGE_GAP, max = READ_ROWS_MAX): [number, number][] {
@@ -26,6 +30,20 @@ export function rowRuns(rows: readonly number[], gap = MERGE_GAP, max = READ_ROW
     else out.push([r, r]);
   }
   return out;
+}
+
+/**
+ * The row runs to read: needed rows merged across gaps of {@link MERGE_GAP} rows, or across wider
+ * gaps when that would still take more than {@link MAX_READS} requests (fewer round trips for a
+ * few more rows read).
+ */
+export function readPlan(rows: readonly number[]): [number, number][] {
+  let runs = rowRuns(rows);
+  for (const gap of WIDER_GAPS) {
+    if (runs.length <= MAX_READS) break;
+    runs = rowRuns(rows, gap);
+  }
+  return runs;
 }
 
 /** A built takedown's computed sheet, read lazily through the port. */
@@ -84,7 +102,7 @@ export class TakedownCells {
     const missing = marks.flatMap((m) => this.rowsOf(m)).filter((r) => !this.readRows.has(r));
     if (missing.length === 0) return;
     const lastCol = this.built.plan.layout.width - 1;
-    for (const [first, last] of rowRuns(missing)) {
+    for (const [first, last] of readPlan(missing)) {
       const data = await this.port.readTable(`${sheetRef(this.built.plan.sheet)}!${cellAddress(first, 0)}:${cellAddress(last, lastCol)}`);
       this.blocks.push(data);
       for (let r = first; r <= last; r++) this.readRows.add(r);

@@ -15,7 +15,7 @@ import { solveDrawing } from "../../src/taskpane/diagrams/model";
 import { loadPathOf, upstreamMarks } from "../../src/taskpane/load-path-of";
 import { caseChoicesOf, choiceOnMember, combinationChoicesOf, governingChoice, largestMoment, memberDrawingOf, type CaseChoice } from "../../src/taskpane/member-drawing";
 import { memberAt, selectionIndexOf } from "../../src/taskpane/selection-map";
-import { rowRuns, TakedownCells } from "../../src/taskpane/takedown-cells";
+import { MAX_READS, readPlan, rowRuns, TakedownCells } from "../../src/taskpane/takedown-cells";
 import type { MemoryWorkbookPort } from "../../src/workbook/memory-port";
 import type { BuiltTakedown, TakedownJson } from "../../src/workbook/takedown-api";
 import { buildOn } from "../workbook/takedown-helpers";
@@ -203,5 +203,12 @@ describe("which member a cell stands for", () => {
       [0, 10],
       [20, 20],
     ]);
+    // Rows scattered over a large sheet: gaps widen until the reads fit the request budget,
+    // every needed row still covered.
+    const scattered = Array.from({ length: 60 }, (_, i) => i * 150);
+    const plan = readPlan(scattered);
+    expect(plan.length).toBeLessThanOrEqual(MAX_READS);
+    for (const r of scattered) expect(plan.some(([a, b]) => a <= r && r <= b)).toBe(true);
+    for (const [a, b] of plan) expect(b - a + 1).toBeLessThanOrEqual(2000);
   });
 });
