@@ -237,25 +237,47 @@ function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, firs
   return [...live].sort((a, b) => a - b);
 }
 
-/** References of channel i's loads over rows top..top+n-1 (the ranges a hand-off writer needs are made on demand). */
+/**
+ * References of one channel's loads over a member's rows; the ranges a hand-off writer needs are
+ * spelt on demand. A class, so the getters live once on its prototype (an object literal with
+ * getters costs four closures per member and channel).
+ */
+class ChannelRanges implements ChannelRefs {
+  readonly loads: string;
+  /**
+   * @param b - first column of the channel's loads block
+   * @param top - first row of the member's block
+   * @param n - rows of the member's block
+   * @param uniform - the member carries one full-length line load (its magnitude cell is the loads argument)
+   */
+  constructor(
+    private readonly b: number,
+    private readonly top: number,
+    private readonly n: number,
+    uniform: boolean,
+  ) {
+    this.loads = uniform ? a1(top, b + 1) : this.range(b, b + 3);
+  }
+  private range(c0: number, c1: number): string {
+    return `${a1(this.top, c0)}:${a1(this.top + this.n - 1, c1)}`;
+  }
+  get magnitude(): string {
+    return this.range(this.b + 1, this.b + 1);
+  }
+  get kind(): string {
+    return this.range(COL.kind, COL.kind);
+  }
+  get from(): string {
+    return this.range(COL.from, COL.from);
+  }
+  get loaded(): string {
+    return this.range(COL.loaded, COL.loaded);
+  }
+}
+
+/** References of channel i's loads over rows top..top+n-1. */
 function channelRefs(ctx: Context, i: number, top: number, n: number, uniform: boolean): ChannelRefs {
-  const b = ctx.layout.block[i]!;
-  const range = (c0: number, c1: number): string => `${a1(top, c0)}:${a1(top + n - 1, c1)}`;
-  return {
-    loads: uniform ? a1(top, b + 1) : range(b, b + 3),
-    get magnitude() {
-      return range(b + 1, b + 1);
-    },
-    get kind() {
-      return range(COL.kind, COL.kind);
-    },
-    get from() {
-      return range(COL.from, COL.from);
-    },
-    get loaded() {
-      return range(COL.loaded, COL.loaded);
-    },
-  };
+  return new ChannelRanges(ctx.layout.block[i]!, top, n, uniform);
 }
 
 /** Row and columns of the K_LL defaults in the sheet's header (one LOADPATH.KLL call each). */
