@@ -34,10 +34,10 @@ function el<K extends keyof HTMLElementTagNameMap>(tag: K, props: Partial<Record
 export function selectionStandIn(sample: SampleJson, target: ActiveCellTarget): HTMLElement {
   const box = el("section", { class: "demo-standin", "aria-labelledby": "standin-title", "data-testid": "demo-standin" });
   box.append(el("h2", { id: "standin-title" }, "Excel’s selection (demo stand-in)"));
-  box.append(el("p", {}, "This page has no grid. Pick a cell here as if you clicked it in Excel; the pane follows it."));
+  box.append(el("p", {}, "No grid on this page: pick a cell as if you clicked it in Excel."));
   const table = membersTableOf(sample);
   const markCol = columnOf(table, "Mark");
-  const rowLabel = el("label", { for: "standin-row" }, "Row of the Members table");
+  const rowLabel = el("label", { for: "standin-row" }, "Members row");
   const select = el("select", { id: "standin-row", "data-testid": "demo-member-row" });
   select.append(el("option", { value: "" }, "Pick a row"));
   table.body.forEach((row, i) => {
@@ -58,9 +58,9 @@ export function selectionStandIn(sample: SampleJson, target: ActiveCellTarget): 
   const cellLabel = el("label", { for: "standin-cell" }, "Or any cell");
   const input = el("input", { id: "standin-cell", type: "text", placeholder: "Takedown!A12", "data-testid": "demo-cell", autocomplete: "off", spellcheck: "false" });
   const go = el("button", { type: "button", "data-testid": "demo-select-cell" }, "Select");
-  const note = el("span", { class: "standin-msg", role: "status", "data-testid": "demo-cell-msg" });
+  const note = el("span", { class: "standin-msg", role: "status", "aria-live": "polite", "data-testid": "demo-cell-msg" });
   const submit = (): void => {
-    note.textContent = move(input.value) ? `Active cell: ${input.value.trim()}` : "Type a cell as Sheet!A1.";
+    note.textContent = move(input.value) ? "" : "Type a cell as Sheet!A1.";
   };
   go.addEventListener("click", submit);
   input.addEventListener("keydown", (e) => {
@@ -69,7 +69,7 @@ export function selectionStandIn(sample: SampleJson, target: ActiveCellTarget): 
   const line1 = el("div", { class: "standin-line" });
   line1.append(rowLabel, select);
   const line2 = el("div", { class: "standin-line" });
-  line2.append(cellLabel, input, go);
-  box.append(line1, line2, note);
+  line2.append(cellLabel, input, go, note);
+  box.append(line1, line2);
   return box;
 }

@@ -23,6 +23,19 @@ function withMinus(s: string): string {
  */
 export function formatValue(value: number, significant = 3): string {
   if (!Number.isFinite(value)) return "?";
+  return formatClean(denoise(value), significant);
+}
+
+/**
+ * The value with round-off below 12 significant figures removed, so two results equal but for
+ * floating-point noise (19.849999999999998 and 19.850000000000001, the two reactions of a
+ * symmetric beam) print alike.
+ */
+function denoise(value: number): number {
+  return Number(value.toPrecision(12));
+}
+
+function formatClean(value: number, significant: number): string {
   const a = Math.abs(value);
   if (a === 0) return "0";
   let s: string;
@@ -40,7 +53,7 @@ export function formatValue(value: number, significant = 3): string {
  */
 export function formatLength(length: number): string {
   if (!Number.isFinite(length)) return "?";
-  const s = trimZeros(length.toFixed(2));
+  const s = trimZeros(denoise(length).toFixed(2));
   return s === "-0" ? "0" : withMinus(s);
 }
 
