@@ -117,6 +117,7 @@ async function drawnReactions(page: Page): Promise<number[]> {
 
 /** Screenshot of the diagrams section across the whole 320 px pane width. */
 async function shoot(page: Page, file: string): Promise<void> {
+  await page.evaluate(() => window.scrollTo(0, 0)); // the demo's sticky stand-in stays at the top, off the section
   const box = await page.$eval('section[aria-labelledby="lp-diagrams"]', (e) => {
     const r = e.getBoundingClientRect();
     return { y: r.top + window.scrollY, height: r.height };

@@ -61,6 +61,7 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
     expect(await page.textContent('[data-testid="caution"]')).toMatch(/qualified engineer/);
     // Readable at the narrowest pane width: nothing wider than the 320 px viewport.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
+    await page.evaluate(() => window.scrollTo(0, 0)); // the demo's sticky stand-in at the top of a full-page shot
     await page.screenshot({ path: join(OUT, "pane-start.png"), fullPage: true });
     expect(errors).toEqual([]);
     await page.close();
@@ -100,6 +101,7 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
       expect(applied).toBeCloseTo(total, 6);
       expect(supports).toBeCloseTo(total, 6); // load balance: everything applied reaches the ground
     }
+    await page.evaluate(() => window.scrollTo(0, 0)); // the demo's sticky stand-in at the top of a full-page shot
     await page.screenshot({ path: join(OUT, "pane-built.png"), fullPage: true });
     expect(errors).toEqual([]);
     await page.close();
@@ -121,6 +123,7 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
     const cycleCell = await cycle.getAttribute("data-cell");
     expect(planted.cycleCells).toContain(cycleCell);
     await page.waitForSelector(`[data-testid="demo-selected"][data-cell="${cycleCell}"]`);
+    await page.evaluate(() => window.scrollTo(0, 0)); // the demo's sticky stand-in at the top of a full-page shot
     await page.screenshot({ path: join(OUT, "pane-problems.png"), fullPage: true });
     await page.close();
   });
