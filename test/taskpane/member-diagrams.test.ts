@@ -11,7 +11,9 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { memberLoads } from "../../src/engine/takedown/member-loads";
 import type { CellValue } from "../../src/engine/takedown";
+import { renderLoadPath, renderMemberSheet } from "../../src/taskpane/diagrams";
 import { solveDrawing } from "../../src/taskpane/diagrams/model";
+import { allElements, parseSvg } from "./diagrams/svg-query";
 import { loadPathOf, upstreamMarks } from "../../src/taskpane/load-path-of";
 import { caseChoicesOf, choiceOnMember, combinationChoicesOf, governingChoice, largestMoment, memberDrawingOf, type CaseChoice } from "../../src/taskpane/member-drawing";
 import { memberAt, selectionIndexOf } from "../../src/taskpane/selection-map";
@@ -210,5 +212,28 @@ describe("which member a cell stands for", () => {
     expect(plan.length).toBeLessThanOrEqual(MAX_READS);
     for (const r of scattered) expect(plan.some(([a, b]) => a <= r && r <= b)).toBe(true);
     for (const [a, b] of plan) expect(b - a + 1).toBeLessThanOrEqual(2000);
+  });
+});
+
+describe("marks and zone names that look like markup", () => {
+  it("reach the drawings as escaped text only", async () => {
+    const hostile = { B1: "<img src=x onerror=alert(1)>", B2: "B2&<b>", G1: '"G1"<svg onload=1>', G2: "G2" };
+    const b = await buildOn(framingSheets(hostile, "<script>x</script>"));
+    expect(b.result.ok).toBe(true);
+    const own = new TakedownCells(b.port, b.result.built!);
+    const marks = [hostile.B1, hostile.G1, ...upstreamMarks(b.result.built!.model, own.path, hostile.G1, 60)];
+    await own.ensure(marks);
+    const source = { model: b.result.built!.model, deliveries: own.path, json: b.result.json!, loadsOf: (m: string) => own.loadsOf(m) };
+    const d = caseChoicesOf(b.result.built!.model.cases)[0]!;
+    for (const mark of [hostile.B1, hostile.G1]) {
+      const loads = own.loadsOf(mark)!;
+      for (const svg of [renderMemberSheet(memberDrawingOf(loads, d, "US")!), renderLoadPath(loadPathOf(source, loads, d))]) {
+        const root = parseSvg(svg);
+        const tags = allElements(root).map((e) => e.tagName.toLowerCase());
+        expect(tags.filter((t) => ["img", "script", "b"].includes(t))).toEqual([]);
+        expect(allElements(root).filter((e) => e.tagName.toLowerCase() === "svg")).toHaveLength(1);
+        expect(allElements(root).some((e) => Array.from(e.attributes).some((a) => /^on/i.test(a.name)))).toBe(false);
+      }
+    }
   });
 });
