@@ -333,6 +333,11 @@ export function toEngineFormula(formula: string): string {
   );
 }
 
+/** `LOADPATH.` anywhere (a formula without it has nothing to respell). */
+const MENTIONS_NAMESPACE = new RegExp(`${NAMESPACE}\\.`, "i");
+/** An add-in call in the engine's spelling: `LOADPATH.NAME(`. */
+const ENGINE_CALL = new RegExp(`\\b${NAMESPACE}\\.([A-Za-z0-9_]+)\\s*\\(`, "gi");
+
 /**
  * A formula in the engine's (typed) spelling -> the spelling Excel itself writes in .xlsx files
  * for add-in functions: `LOADPATH.NAME(` -> `_xldudf_LOADPATH_NAME(`. Excel maps it back to the
@@ -340,8 +345,12 @@ export function toEngineFormula(formula: string): string {
  * @param formula - formula text without the leading "=".
  */
 export function toFileFormula(formula: string): string {
-  return outsideStrings(formula, (code) => code.replace(new RegExp(`\\b${NAMESPACE}\\.([A-Za-z0-9_]+)\\s*\\(`, "gi"), (_m, name: string) => `_xldudf_${NAMESPACE}_${name.toUpperCase()}(`));
+  // Most formulas of a generated sheet call no add-in function: left as they are, without splitting.
+  if (!MENTIONS_NAMESPACE.test(formula)) return formula;
+  const respell = (code: string): string => code.replace(ENGINE_CALL, (_m, name: string) => `_xldudf_${NAMESPACE}_${name.toUpperCase()}(`);
+  return formula.includes('"') ? outsideStrings(formula, respell) : respell(formula);
 }
+
 
 /** True when a formula calls a LOADPATH function (in either spelling). */
 export function callsLoadpath(formula: string): boolean {
