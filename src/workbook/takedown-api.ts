@@ -3,23 +3,28 @@
  * over a WorkbookPort) and its callers: the task pane and the `loadpath takedown` command.
  * Shapes of the JSON follow design.md section 5 exactly.
  */
-import type { SheetPlan, TakedownModel } from "../engine/takedown";
+import type {
+  ColumnResult,
+  LoadCase,
+  MemberResult,
+  Problem,
+  ProblemCode,
+  SheetPlan,
+  Summary,
+  TableMapping,
+  TakedownModel,
+  TakedownResults,
+  UnitSystem,
+} from "../engine/takedown";
 import type { WorkbookPort } from "./port";
 
-export type UnitSystem = "US" | "SI";
+// The shapes shared with the engine are declared once, in src/engine/takedown (types.ts,
+// results.ts, index.ts), and re-exported here under the contract's names.
+export type { LoadCase, Problem, ProblemCode, UnitSystem };
+export type { ColumnResult as ColumnResultJson, MemberResult as MemberResultJson, Summary as TakedownSummary, TakedownResults as TakedownJson };
 
-/** Load cases carried through a takedown. */
-export type LoadCase = "D" | "L" | "Lr" | "S" | "R";
-
-/**
- * Column mapping for tables whose headers differ from the defaults of design.md section 4:
- * canonical header (e.g. "Trib") -> the header the user's table has (e.g. "Trib width").
- */
-export interface ColumnMapping {
-  readonly zones?: Readonly<Record<string, string>>;
-  readonly members?: Readonly<Record<string, string>>;
-  readonly loads?: Readonly<Record<string, string>>;
-}
+/** Column mapping per table (canonical header -> the user's header); see the engine's TableMapping. */
+export type ColumnMapping = TableMapping;
 
 export interface TakedownOptions {
   /** Table name, sheet name (used range) or "Sheet!A1:G20" of each input table. */
@@ -34,73 +39,6 @@ export interface TakedownOptions {
   readonly replaceForeign?: boolean;
   /** Hand-off mode: classic spreadsheet functions only, no add-in functions. */
   readonly native?: boolean;
-}
-
-export type ProblemCode =
-  | "duplicateMark"
-  | "unknownSupport"
-  | "cycle"
-  | "badSpan"
-  | "supportOutside"
-  | "selfSupport"
-  | "columnWithoutBase"
-  | "unitMismatch"
-  | "missingColumn"
-  | "missingTable"
-  | "badValue"
-  | "unknownZone"
-  | "unknownType"
-  | "missingPosition"
-  | "foreignSheet";
-
-/** One thing wrong with the input, with the cell to select. */
-export interface Problem {
-  readonly code: ProblemCode;
-  readonly message: string;
-  readonly sheet: string;
-  /** A1 address on that sheet. */
-  readonly cell: string;
-  readonly mark?: string;
-}
-
-export interface TakedownSummary {
-  readonly membersByType: Readonly<Record<string, number>>;
-  readonly levels: readonly string[];
-  /** Total applied load per case (kip or kN). */
-  readonly appliedByCase: Readonly<Record<string, number>>;
-  /** Total foundation/wall reactions per case. */
-  readonly supportsByCase: Readonly<Record<string, number>>;
-}
-
-export interface MemberResultJson {
-  readonly type: string;
-  readonly level: string;
-  readonly reactions: Readonly<Record<string, readonly number[]>>;
-  readonly shearMax: Readonly<Record<string, number>>;
-  readonly momentMax: Readonly<Record<string, number>>;
-  readonly tributaryArea: number;
-  readonly llrFactor: number;
-}
-
-export interface ColumnResultJson {
-  readonly level: string;
-  readonly cumulative: Readonly<Record<string, number>>;
-  readonly tributaryArea: number;
-  readonly floors: number;
-  readonly kllAt: number;
-  readonly llrFactor: number;
-  readonly reducedLive: number;
-  readonly combos: Readonly<Record<string, number>>;
-}
-
-/** The JSON of design.md section 5. */
-export interface TakedownJson {
-  readonly units: UnitSystem;
-  readonly members: Readonly<Record<string, MemberResultJson>>;
-  readonly columns: Readonly<Record<string, ColumnResultJson>>;
-  readonly foundations: Readonly<Record<string, Readonly<Record<string, number>>>>;
-  readonly balance: Readonly<Record<string, { readonly applied: number; readonly supports: number }>>;
-  readonly problems: readonly Problem[];
 }
 
 /** A member's block on the generated sheet: 0-based first row (its results row) and row count. */
@@ -124,8 +62,8 @@ export interface TakedownBuildResult {
   /** False when problems stopped the build (nothing written). */
   readonly ok: boolean;
   readonly problems: readonly Problem[];
-  readonly summary?: TakedownSummary;
-  readonly json?: TakedownJson;
+  readonly summary?: Summary;
+  readonly json?: TakedownResults;
   /** The generated sheet's name when written. */
   readonly sheet?: string;
   /** The model, plan and member rows of a written takedown (absent when nothing was written). */

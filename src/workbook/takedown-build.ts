@@ -6,7 +6,7 @@
  */
 import { cellAddress, sheetRef } from "./a1";
 import { createNativeWriter, type NativeFormulaWriter } from "../engine/native/takedown-writer";
-import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type Problem as EngineProblem, type SheetPlan, type TableData } from "../engine/takedown";
+import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type SheetPlan, type TableData } from "../engine/takedown";
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
 import type { BuildTakedown, BuiltTakedown, MemberRows, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
 
@@ -18,10 +18,6 @@ export const WRITE_BLOCK_ROWS = 2000;
 
 /** Rows per block read back. */
 const READ_BLOCK_ROWS = 5000;
-
-// The engine's shapes must stay those of the contract: these assignments fail to compile otherwise.
-const _problemShape: (p: EngineProblem) => Problem = (p) => p;
-void _problemShape;
 
 /** First line of the generated sheet: the marker the add-in recognises, and what the sheet is. */
 export function sheetTitle(options: TakedownOptions): string {

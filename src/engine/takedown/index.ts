@@ -23,7 +23,10 @@ export { sortGraph, type SortResult, type Edge } from "./graph";
 export { orderTakedown, levelsTopDown, levelHeightHint } from "./order";
 export { layoutOf, channelsOf, COL, type Layout, type Channel } from "./layout";
 
-/** Column mapping per table: canonical header -> the user's header. */
+/**
+ * Column mapping for tables whose headers differ from the defaults of design.md section 4:
+ * canonical header (e.g. "Trib") -> the header the user's table has (e.g. "Trib width").
+ */
 export interface TableMapping {
   readonly zones?: Readonly<Record<string, string>>;
   readonly members?: Readonly<Record<string, string>>;

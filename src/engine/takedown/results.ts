@@ -47,7 +47,9 @@ export interface TakedownResults {
 export interface Summary {
   readonly membersByType: Readonly<Record<string, number>>;
   readonly levels: readonly string[];
+  /** Total applied load per case (kip or kN). */
   readonly appliedByCase: Readonly<Record<string, number>>;
+  /** Total foundation/wall reactions per case. */
   readonly supportsByCase: Readonly<Record<string, number>>;
 }
 

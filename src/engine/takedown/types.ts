@@ -1,8 +1,8 @@
 /**
  * Types shared by the takedown engine: the input tables as read, the problems found in them and
- * the load cases carried. Shapes match the workbook port (src/workbook/port.ts) and the takedown
- * contract (src/workbook/takedown-api.ts) structurally, so the engine needs no import from the
- * layers above it.
+ * the load cases carried. The takedown contract (src/workbook/takedown-api.ts) re-exports these
+ * declarations; the table shapes match the workbook port (src/workbook/port.ts) structurally, so
+ * the engine needs no import from the layers above it.
  */
 
 /** A cell's content as read: number, text, boolean, blank (null) or an error text like "#DIV/0!". */
@@ -48,6 +48,7 @@ export interface Problem {
   readonly code: ProblemCode;
   readonly message: string;
   readonly sheet: string;
+  /** A1 address on that sheet. */
   readonly cell: string;
   readonly mark?: string;
 }
