@@ -1,16 +1,10 @@
-/** A1-style address helpers (0-based rows and columns in, Excel letters out). */
+/**
+ * A1-style address helpers (0-based rows and columns in, Excel letters out). Writing addresses is
+ * the engine's (src/engine/a1.ts); parsing them, which throws on bad text, stays here.
+ */
+import { a1, a1Absolute } from "../engine/a1";
 
-/** 0 -> "A", 25 -> "Z", 26 -> "AA". */
-export function columnLetter(col: number): string {
-  let n = col + 1;
-  let s = "";
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
+export { columnLetter, quoteSheet as sheetRef } from "../engine/a1";
 
 /** "AA" -> 26. Throws on anything that is not a column of letters. */
 export function columnIndex(letters: string): number {
@@ -22,12 +16,7 @@ export function columnIndex(letters: string): number {
 
 /** (0, 0) -> "A1"; absolute gives "$A$1". */
 export function cellAddress(row: number, col: number, absolute = false): string {
-  return absolute ? `$${columnLetter(col)}$${row + 1}` : `${columnLetter(col)}${row + 1}`;
-}
-
-/** Quote a sheet name for a formula reference when it needs it: My Sheet -> 'My Sheet'. */
-export function sheetRef(sheet: string): string {
-  return /^[A-Za-z_][A-Za-z0-9_.]*$/.test(sheet) && !/^[A-Za-z]{1,3}[0-9]+$/.test(sheet) ? sheet : `'${sheet.replace(/'/g, "''")}'`;
+  return absolute ? a1Absolute(row, col) : a1(row, col);
 }
 
 /** Parse "B7" or "$B$7" into 0-based row/col. */

@@ -2,6 +2,7 @@
  * References and literals for formula text in the classic A1 notation that every spreadsheet
  * program reads. Rows and columns are 0-based here, as in the workbook port.
  */
+import { a1Absolute, columnLetter } from "../a1";
 
 /** Where a generated block sits: sheet name and 0-based top-left cell. */
 export interface BlockOrigin {
@@ -10,19 +11,11 @@ export interface BlockOrigin {
   readonly col: number;
 }
 
-/** 0 -> "A", 25 -> "Z", 26 -> "AA". */
-export function colLetters(col: number): string {
-  let n = col + 1;
-  let s = "";
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
-
-/** A sheet name as it must appear before "!": quoted unless it is a plain identifier. */
+/**
+ * A sheet name as it must appear before "!": quoted unless it is a plain identifier. Stricter
+ * than the Excel rule of src/engine/a1.ts (names with a dot and TRUE/FALSE are quoted too), as the
+ * hand-off formulas are read by other spreadsheet programs as well.
+ */
 export function quoteSheet(sheet: string): string {
   const plain = /^[A-Za-z_][A-Za-z0-9_]*$/.test(sheet) && !/^[A-Za-z]{1,3}[0-9]+$/.test(sheet) && !/^(TRUE|FALSE)$/i.test(sheet);
   return plain ? sheet : `'${sheet.replace(/'/g, "''")}'`;
@@ -30,12 +23,12 @@ export function quoteSheet(sheet: string): string {
 
 /** Absolute reference to one cell, e.g. `Takedown!$C$12`. */
 export function cellRef(sheet: string, row: number, col: number): string {
-  return `${quoteSheet(sheet)}!$${colLetters(col)}$${row + 1}`;
+  return `${quoteSheet(sheet)}!${a1Absolute(row, col)}`;
 }
 
 /** Absolute reference to a single-column range of `rows` cells starting at (row, col). */
 export function columnRangeRef(sheet: string, row: number, col: number, rows: number): string {
-  const c = colLetters(col);
+  const c = columnLetter(col);
   return `${quoteSheet(sheet)}!$${c}$${row + 1}:$${c}$${row + rows}`;
 }
 
