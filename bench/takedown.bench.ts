@@ -16,8 +16,10 @@
  * Needs `npm run build` (the headless engine loads the built functions bundle).
  */
 import ExcelJS from "exceljs";
+import { HyperFormula, type RawCellContent } from "hyperformula";
 import { planTakedown } from "../src/engine/takedown";
-import { exportSheets, MemoryWorkbookPort } from "../src/workbook/memory-port";
+import { HEADLESS_CONFIG } from "../src/workbook/headless";
+import { exportSheets, MemoryWorkbookPort, SHEET_LIMITS } from "../src/workbook/memory-port";
 import { buildTakedown } from "../src/workbook/takedown-build";
 import { frameOfSize, makeFrame } from "../test/workbook/takedown-fixtures";
 import { report, timeMs } from "./timing";
@@ -39,6 +41,8 @@ interface Phases {
   /** Spreadsheet engine: evaluating every formula once. */
   readonly evaluateMs: number;
   readonly readBackMs: number;
+  /** JavaScript heap in use after the build (the engine's graph of every cell dominates it). */
+  readonly heapMb: number;
 }
 
 interface Built {
@@ -92,6 +96,7 @@ async function buildOnce(size: number): Promise<Built> {
       sortMs: stat("TOP_SORT"),
       evaluateMs: stat("EVALUATION"),
       readBackMs: t1 - readStart,
+      heapMb: process.memoryUsage().heapUsed / 1e6,
     },
   };
 }
@@ -120,6 +125,40 @@ async function exportMs(port: MemoryWorkbookPort): Promise<number> {
   });
 }
 
+/**
+ * The spreadsheet engine alone on the same workbook with every add-in call replaced by SUM of the
+ * same arguments: the time no change to the functions, the plan or the read-back can go below
+ * while the sheet has this many cells.
+ */
+function engineFloorMs(port: MemoryWorkbookPort): number {
+  const hf = port.hf;
+  const sheets: Record<string, RawCellContent[][]> = {};
+  for (const name of hf.getSheetNames()) {
+    sheets[name] = hf.getSheetSerialized(hf.getSheetId(name)!).map((row) =>
+      row.map((c) => (typeof c === "string" && c.startsWith("=") ? c.replace(/\bLOADPATH\.[A-Z_]+\(/g, "SUM(") : c)),
+    );
+  }
+  const t0 = performance.now();
+  const floor = HyperFormula.buildFromSheets(sheets, { ...HEADLESS_CONFIG, ...SHEET_LIMITS });
+  const ms = performance.now() - t0;
+  floor.destroy();
+  return ms;
+}
+
+/** Number of non-blank cells and of formulas of the generated sheet. */
+function cellCounts(port: MemoryWorkbookPort): { cells: number; formulas: number } {
+  let cells = 0;
+  let formulas = 0;
+  for (const row of port.hf.getSheetSerialized(port.hf.getSheetId("Takedown")!)) {
+    for (const c of row) {
+      if (c === null || c === undefined || c === "") continue;
+      cells++;
+      if (typeof c === "string" && c.startsWith("=")) formulas++;
+    }
+  }
+  return { cells, formulas };
+}
+
 function reportPhases(built: Built): void {
   const p = built.phases;
   const n = built.members;
@@ -134,11 +173,14 @@ function reportPhases(built: Built): void {
   report(`    of which evaluating every formula`, p.evaluateMs, "ms");
   report(`  read back: results read from the sheet, JSON`, p.readBackMs, "ms");
   report(`  per member`, p.totalMs / n, "ms");
+  report(`  JavaScript heap in use after the build`, p.heapMb, "MB");
 }
 
 export async function run(): Promise<void> {
-  // Warm-up: load the functions bundle and let the JIT see every path once.
-  await buildOnce(300);
+  // Warm-up: load the functions bundle and let the JIT see every path (a 300-member warm-up left
+  // the 1,000-member figure twice the per-member time of the larger ones).
+  (await buildOnce(300)).port.hf.destroy();
+  (await buildOnce(1000)).port.hf.destroy();
   planOnlyMs(1000);
   const perMember: number[] = [];
   let largest: Built | null = null;
@@ -158,6 +200,10 @@ export async function run(): Promise<void> {
     const before = largest.port.value("Zones", cell) as number;
     const ms = await timeMs(() => largest!.port.setCell("Zones", cell, before + 10));
     report(`recalculation after one zone change (${largest.zone} D: one floor of ${largest.levels - 1})`, ms, "ms", "< 1,000 ms");
+    const counts = cellCounts(largest.port);
+    report(`generated sheet of ${largest.members.toLocaleString("en-US")} members: cells, of which formulas`, counts.cells, "cells");
+    report(`  formulas`, counts.formulas, "formulas");
+    report(`spreadsheet engine alone, add-in calls replaced by SUM (floor)`, engineFloorMs(largest.port), "ms");
     report(`generated sheet written to .xlsx in memory, ${largest.members.toLocaleString("en-US")} members`, await exportMs(largest.port), "ms");
   }
 }
