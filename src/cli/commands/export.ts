@@ -8,7 +8,6 @@
  * caution. The input file is never changed.
  */
 import { resolve } from "node:path";
-import { parseArgs } from "node:util";
 import type ExcelJS from "exceljs";
 import { noticeRows, NOTICE_SHEET, type ValueOnlyCell } from "../../engine/native/notice";
 import { helperSheetName } from "../../engine/native/takedown-writer";
@@ -20,6 +19,7 @@ import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-b
 import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
 import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
+import { parseVerbArgs, usageOnThrow } from "../shared";
 
 const USAGE = `Usage: loadpath export <in.xlsx> -o <handoff.xlsx> [options]
 
@@ -272,25 +272,22 @@ const exportCommand: Command = {
   summary: "write a hand-off copy that recalculates without the add-in (Excel, LibreOffice Calc, Gnumeric)",
   usage: USAGE,
   async run(args, io: CliIO) {
-    let parsed;
-    try {
-      parsed = parseArgs({
-        args: [...args],
-        options: {
-          output: { type: "string", short: "o" },
-          zones: { type: "string" },
-          members: { type: "string" },
-          loads: { type: "string" },
-          units: { type: "string" },
-          sheet: { type: "string" },
-          json: { type: "string" },
-        },
-        allowPositionals: true,
-      });
-    } catch (e) {
-      io.err(`loadpath export: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
-      return EXIT.usage;
-    }
+    const parsed = parseVerbArgs(
+      "export",
+      USAGE,
+      args,
+      {
+        output: { type: "string", short: "o" },
+        zones: { type: "string" },
+        members: { type: "string" },
+        loads: { type: "string" },
+        units: { type: "string" },
+        sheet: { type: "string" },
+        json: { type: "string" },
+      },
+      io,
+    );
+    if (!parsed) return EXIT.usage;
     const [input, ...extra] = parsed.positionals;
     const v = parsed.values;
     if (input === undefined || extra.length > 0 || v.output === undefined) {
@@ -315,21 +312,19 @@ const exportCommand: Command = {
       v.zones !== undefined && v.members !== undefined
         ? [{ sheet, options: { zones: v.zones, members: v.members, ...(v.loads ? { loads: v.loads } : {}), units: (units ?? "US") as UnitSystem, sheetName: sheet } }]
         : undefined;
-    try {
-      const report = await exportHandoff(input, v.output, { ...(takedowns ? { takedowns } : {}), ...(units ? { units: units as UnitSystem } : {}) });
-      const lines = reportLines(report, v.output);
+    const { output, json: jsonPath } = v;
+    return usageOnThrow("export", io, async () => {
+      const report = await exportHandoff(input, output, { ...(takedowns ? { takedowns } : {}), ...(units ? { units: units as UnitSystem } : {}) });
+      const lines = reportLines(report, output);
       lines.err.forEach((l) => io.err(l));
       lines.out.forEach((l) => io.out(l));
-      if (v.json && report.ok) {
+      if (jsonPath && report.ok) {
         const { writeFileSync } = await import("node:fs");
         const json = { takedowns: Object.fromEntries(report.takedowns.map((t) => [t.sheet, t.json ?? null])), valueOnly: report.valueOnly };
-        writeFileSync(resolve(v.json), JSON.stringify(json, null, 2));
+        writeFileSync(resolve(jsonPath), JSON.stringify(json, null, 2));
       }
       return report.ok ? EXIT.ok : EXIT.failed;
-    } catch (e) {
-      io.err(`loadpath export: ${e instanceof Error ? e.message : String(e)}`);
-      return EXIT.usage;
-    }
+    });
   },
 };
 

@@ -4,9 +4,9 @@
  * computed values cached, and report each formula error on stderr as `Sheet!A1: message`.
  */
 import { resolve } from "node:path";
-import { parseArgs } from "node:util";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx, type CellProblem, type RecalcSummary } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
+import { parseVerbArgs, singleInput, usageOnThrow } from "../shared";
 
 const USAGE = `Usage: loadpath recalc <in.xlsx> [-o <out.xlsx>]
 
@@ -57,24 +57,11 @@ const recalc: Command = {
   summary: "recalculate a workbook headless and write it with cached values",
   usage: USAGE,
   async run(args, io) {
-    let parsed;
-    try {
-      parsed = parseArgs({ args: [...args], options: { output: { type: "string", short: "o" } }, allowPositionals: true });
-    } catch (e) {
-      io.err(`loadpath recalc: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
-      return EXIT.usage;
-    }
-    const [input, ...extra] = parsed.positionals;
-    if (input === undefined || extra.length > 0) {
-      io.err(input === undefined ? `loadpath recalc: no input workbook given.\n\n${USAGE}` : `loadpath recalc: one input workbook at a time (got ${parsed.positionals.length}).`);
-      return EXIT.usage;
-    }
-    try {
-      return await recalcFile(input, parsed.values.output, io);
-    } catch (e) {
-      io.err(`loadpath recalc: ${e instanceof Error ? e.message : String(e)}`);
-      return EXIT.usage;
-    }
+    const parsed = parseVerbArgs("recalc", USAGE, args, { output: { type: "string", short: "o" } }, io);
+    if (!parsed) return EXIT.usage;
+    const input = singleInput("recalc", USAGE, parsed.positionals, io);
+    if (input === undefined) return EXIT.usage;
+    return usageOnThrow("recalc", io, () => recalcFile(input, parsed.values.output, io));
   },
 };
 

@@ -7,12 +7,12 @@
  */
 import { writeFileSync } from "node:fs";
 import { basename, extname, join, resolve } from "node:path";
-import { parseArgs } from "node:util";
 import type ExcelJS from "exceljs";
 import { isFlexural } from "../../engine/takedown/model";
 import { collectTakedown, renderReport, type TakedownRecord } from "../../report";
 import type { XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
+import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
 import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
 import { describeTakedownProblem } from "./takedown";
@@ -135,39 +135,30 @@ const report: Command = {
   summary: "write a printable calculation report (HTML) of a workbook's takedown",
   usage: USAGE,
   async run(args, io) {
-    let parsed;
-    try {
-      parsed = parseArgs({
-        args: [...args],
-        options: {
-          output: { type: "string", short: "o" },
-          members: { type: "string", multiple: true },
-          all: { type: "boolean" },
-          ...tableOptions(MEMBERS_TABLE_OPTION),
-          project: { type: "string" },
-          date: { type: "string" },
-        },
-        allowPositionals: true,
-      });
-    } catch (e) {
-      io.err(`loadpath report: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
-      return EXIT.usage;
-    }
-    const [input, ...extra] = parsed.positionals;
-    if (input === undefined || extra.length > 0) {
-      io.err(input === undefined ? `loadpath report: no input workbook given.\n\n${USAGE}` : `loadpath report: one input workbook at a time (got ${parsed.positionals.length}).`);
-      return EXIT.usage;
-    }
+    const parsed = parseVerbArgs(
+      "report",
+      USAGE,
+      args,
+      {
+        output: { type: "string", short: "o" },
+        members: { type: "string", multiple: true },
+        all: { type: "boolean" },
+        ...tableOptions(MEMBERS_TABLE_OPTION),
+        project: { type: "string" },
+        date: { type: "string" },
+      },
+      io,
+    );
+    if (!parsed) return EXIT.usage;
+    const input = singleInput("report", USAGE, parsed.positionals, io);
+    if (input === undefined) return EXIT.usage;
     const v = parsed.values;
     const output = typeof v.output === "string" ? v.output : undefined;
     if (output === undefined) {
       io.err(`loadpath report: name the HTML file to write with -o.\n\n${USAGE}`);
       return EXIT.usage;
     }
-    if (resolve(output) === resolve(input)) {
-      io.err(`loadpath report: ${output} is the input file; name another file, the input is never written over.`);
-      return EXIT.usage;
-    }
+    if (writesOverInput("report", input, [output], io)) return EXIT.usage;
     const memberValues = Array.isArray(v.members) ? v.members.filter((m): m is string => typeof m === "string") : [];
     if (memberValues.length > 0 && v.all === true) {
       io.err("loadpath report: give --members or --all, not both.");
@@ -183,17 +174,14 @@ const report: Command = {
       io.err(`loadpath report: ${checked.error}`);
       return EXIT.usage;
     }
-    try {
+    return usageOnThrow("report", io, async () => {
       const r = await reportOfFile(input, checked.run, { ...(marks.length > 0 ? { members: marks } : {}), ...(typeof v.project === "string" ? { project: v.project } : {}), ...(typeof v.date === "string" ? { date: v.date } : {}) }, io);
       if (r.html === undefined) return r.status;
       writeFileSync(resolve(output), r.html);
       const n = marks.length > 0 ? marks.length : allMembers(r.record!).length;
       io.out(`Calculation report of ${n} member(s) written to ${output} (open it in a browser; print to PDF from there).`);
       return r.status;
-    } catch (e) {
-      io.err(`loadpath report: ${e instanceof Error ? e.message : String(e)}`);
-      return EXIT.usage;
-    }
+    });
   },
 };
 

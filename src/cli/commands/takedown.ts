@@ -8,13 +8,13 @@
  */
 import { writeFileSync } from "node:fs";
 import { join, resolve } from "node:path";
-import { parseArgs } from "node:util";
 import { sheetRef } from "../../workbook/a1";
 import { exportSheets } from "../../workbook/memory-port";
 import { DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
 import { cacheResults, writeXlsx } from "../../workbook/xlsx";
 import type { Problem, TakedownBuildResult, TakedownJson, UnitSystem } from "../../workbook/takedown-api";
 import { EXIT, type CliIO, type Command } from "../main";
+import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
 import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
 
@@ -114,12 +114,7 @@ function jsonOf(result: TakedownBuildResult, units: UnitSystem): TakedownJson {
  * @returns the exit status
  */
 export async function takedownFile(input: string, output: string | undefined, jsonPath: string | undefined, run: TakedownRun, io: CliIO): Promise<number> {
-  for (const target of [output, jsonPath]) {
-    if (target !== undefined && resolve(target) === resolve(input)) {
-      io.err(`loadpath takedown: ${target} is the input file; name another file, the input is never written over.`);
-      return EXIT.usage;
-    }
-  }
+  if (writesOverInput("takedown", input, [output, jsonPath], io)) return EXIT.usage;
   const { result, workbook, port } = await takedownOfFile(input, run);
   for (const p of result.problems) io.err(describeTakedownProblem(p));
   if (result.ok && result.json) {
@@ -157,29 +152,23 @@ const takedown: Command = {
   summary: "build the load takedown of a workbook's member tables headless",
   usage: USAGE,
   async run(args, io) {
-    let parsed;
-    try {
-      parsed = parseArgs({
-        args: [...args],
-        options: {
-          output: { type: "string", short: "o" },
-          json: { type: "string" },
-          ...tableOptions(),
-          sheet: { type: "string" },
-          replace: { type: "boolean" },
-          native: { type: "boolean" },
-        },
-        allowPositionals: true,
-      });
-    } catch (e) {
-      io.err(`loadpath takedown: ${e instanceof Error ? e.message : String(e)}\n\n${USAGE}`);
-      return EXIT.usage;
-    }
-    const [input, ...extra] = parsed.positionals;
-    if (input === undefined || extra.length > 0) {
-      io.err(input === undefined ? `loadpath takedown: no input workbook given.\n\n${USAGE}` : `loadpath takedown: one input workbook at a time (got ${parsed.positionals.length}).`);
-      return EXIT.usage;
-    }
+    const parsed = parseVerbArgs(
+      "takedown",
+      USAGE,
+      args,
+      {
+        output: { type: "string", short: "o" },
+        json: { type: "string" },
+        ...tableOptions(),
+        sheet: { type: "string" },
+        replace: { type: "boolean" },
+        native: { type: "boolean" },
+      },
+      io,
+    );
+    if (!parsed) return EXIT.usage;
+    const input = singleInput("takedown", USAGE, parsed.positionals, io);
+    if (input === undefined) return EXIT.usage;
     const checked = runOfOptions(parsed.values);
     if ("error" in checked) {
       io.err(`loadpath takedown: ${checked.error}`);
@@ -192,12 +181,7 @@ const takedown: Command = {
       replace: v.replace === true,
       native: v.native === true,
     };
-    try {
-      return await takedownFile(input, v.output, v.json, run, io);
-    } catch (e) {
-      io.err(`loadpath takedown: ${e instanceof Error ? e.message : String(e)}`);
-      return EXIT.usage;
-    }
+    return usageOnThrow("takedown", io, () => takedownFile(input, v.output, v.json, run, io));
   },
 };
 
