@@ -142,26 +142,33 @@ function resultsTable(record: TakedownRecord, m: MemberLoads, r: MemberResult, f
   return el("table", { class: "results", "data-role": "results" }, el("thead", {}, head), el("tbody", {}, ...rows));
 }
 
+/** One row of a quantity table: its name, value cell, unit and source. */
+function quantityRow(name: string, role: string, cell: Html, unit: string, source: string): Html {
+  return el("tr", { "data-role": role }, el("th", { scope: "row" }, name), cell, el("td", { class: "unit" }, unit), el("td", { class: "source" }, source));
+}
+
+/** A table of quantities: name (headed `title`) | Value | Unit | Source, one row each. */
+function quantityTable(title: string, role: string, rows: readonly (Html | null)[]): Html {
+  return el(
+    "table",
+    { class: "reduction", "data-role": role },
+    el("thead", {}, el("tr", {}, el("th", {}, title), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", {}, "Source"))),
+    el("tbody", {}, ...rows),
+  );
+}
+
 /** Tributary area and live load reduction of a beam. */
 function reductionTable(record: TakedownRecord, m: MemberLoads, r: MemberResult): Html | null {
   if (m.liveReduction === null) return null;
   if (r.tributaryArea === 0) return el("p", { class: "note", "data-role": "reduction" }, "No reducible live load on this member (A_T = 0): live load reduction does not apply.");
   const u = RESULT_UNITS[record.model.units];
   const kll = m.liveReduction.kll;
-  const row = (name: string, role: string, cell: Html, unit: string, source: string): Html => el("tr", { "data-role": role }, el("th", { scope: "row" }, name), cell, el("td", { class: "unit" }, unit), el("td", { class: "source" }, source));
-  return el(
-    "table",
-    { class: "reduction", "data-role": "reduction" },
-    el("thead", {}, el("tr", {}, el("th", {}, "Live load reduction"), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", {}, "Source"))),
-    el(
-      "tbody",
-      {},
-      row("A_T", "area", numCell(r.tributaryArea, "area"), u.area, SOURCES.areaT),
-      row("K_LL", "kll", numCell(kll, "count"), "", SOURCES.kll),
-      row("K_LL·A_T", "kll-at", numCell(kll * r.tributaryArea, "area"), u.area, SOURCES.llr),
-      row("L/Lo", "llr", numCell(r.llrFactor, "factor"), "", SOURCES.llr),
-    ),
-  );
+  return quantityTable("Live load reduction", "reduction", [
+    quantityRow("A_T", "area", numCell(r.tributaryArea, "area"), u.area, SOURCES.areaT),
+    quantityRow("K_LL", "kll", numCell(kll, "count"), "", SOURCES.kll),
+    quantityRow("K_LL·A_T", "kll-at", numCell(kll * r.tributaryArea, "area"), u.area, SOURCES.llr),
+    quantityRow("L/Lo", "llr", numCell(r.llrFactor, "factor"), "", SOURCES.llr),
+  ]);
 }
 
 function figure(svg: string, role: string): Html {
@@ -208,22 +215,14 @@ function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number):
 function columnTable(record: TakedownRecord, c: ColumnResult): Html {
   const u = RESULT_UNITS[record.model.units];
   const governing = governingOf(c);
-  const row = (name: string, role: string, cell: Html, unit: string, source: string): Html => el("tr", { "data-role": role }, el("th", { scope: "row" }, name), cell, el("td", { class: "unit" }, unit), el("td", { class: "source" }, source));
-  return el(
-    "table",
-    { class: "reduction", "data-role": "column-results" },
-    el("thead", {}, el("tr", {}, el("th", {}, "Result"), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", {}, "Source"))),
-    el(
-      "tbody",
-      {},
-      row("A_T", "area", numCell(c.tributaryArea, "area"), u.area, SOURCES.areaT),
-      row("Floors supported", "floors", numCell(c.floors, "count"), "", "Levels of the stack where floor live load arrives"),
-      row("K_LL·A_T", "kll-at", numCell(c.kllAt, "area"), u.area, SOURCES.llr),
-      row("L/Lo", "llr", numCell(c.llrFactor, "factor"), "", SOURCES.llr),
-      row("L reduced", "reduced-live", numCell(c.reducedLive, "force"), u.force, SOURCES.reducedLive),
-      governing ? row(`Governing: ${governing.label}`, "governing", numCell(governing.value, "force"), u.force, SOURCES.governing) : null,
-    ),
-  );
+  return quantityTable("Result", "column-results", [
+    quantityRow("A_T", "area", numCell(c.tributaryArea, "area"), u.area, SOURCES.areaT),
+    quantityRow("Floors supported", "floors", numCell(c.floors, "count"), "", "Levels of the stack where floor live load arrives"),
+    quantityRow("K_LL·A_T", "kll-at", numCell(c.kllAt, "area"), u.area, SOURCES.llr),
+    quantityRow("L/Lo", "llr", numCell(c.llrFactor, "factor"), "", SOURCES.llr),
+    quantityRow("L reduced", "reduced-live", numCell(c.reducedLive, "force"), u.force, SOURCES.reducedLive),
+    governing ? quantityRow(`Governing: ${governing.label}`, "governing", numCell(governing.value, "force"), u.force, SOURCES.governing) : null,
+  ]);
 }
 
 /**
