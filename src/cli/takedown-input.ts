@@ -1,7 +1,8 @@
 /**
  * What the verbs that build a takedown from an .xlsx file share (`loadpath takedown`,
  * `loadpath report`): the table options (`--units`, `--zones`, `--members`, `--loads`, `--map`),
- * their checks, and the headless build of a file in memory.
+ * their checks, the default tables' lookup (also used by `loadpath export`) and the headless
+ * build of a file in memory.
  */
 import type { ParseArgsConfig } from "node:util";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
@@ -95,13 +96,20 @@ export function runOfOptions(values: OptionValues, membersOption = "members"): {
   };
 }
 
+/**
+ * The table called `name` (any case), else the sheet so called, by the workbook's own spelling.
+ * @param wb - the workbook read
+ * @param name - the name looked for ("Zones", say)
+ * @returns the table's or sheet's name, or undefined when the workbook has neither
+ */
+export function tableOrSheet(wb: XlsxWorkbook, name: string): string | undefined {
+  const key = name.toLowerCase();
+  return wb.tables.find((t) => t.name.toLowerCase() === key)?.name ?? wb.sheets.find((s) => s.name.toLowerCase() === key)?.name;
+}
+
 /** A name given, or the table/sheet named `fallback` when the workbook has one. */
 function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string): string | undefined {
-  if (given !== undefined) return given;
-  const key = fallback.toLowerCase();
-  const table = wb.tables.find((t) => t.name.toLowerCase() === key);
-  if (table) return table.name;
-  return wb.sheets.find((s) => s.name.toLowerCase() === key)?.name;
+  return given ?? tableOrSheet(wb, fallback);
 }
 
 /**

@@ -20,6 +20,7 @@ import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../w
 import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
 import { parseVerbArgs, usageOnThrow } from "../shared";
+import { tableOrSheet } from "../takedown-input";
 
 const USAGE = `Usage: loadpath export <in.xlsx> -o <handoff.xlsx> [options]
 
@@ -104,12 +105,6 @@ function headersOf(wb: XlsxWorkbook, name: string): string[] {
   if (table) return [...table.headers];
   const sheet = wb.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
   return (sheet?.rows[0] ?? []).map((v) => (typeof v === "string" ? v.replace(/^'/, "") : String(v ?? "")));
-}
-
-/** A table or sheet called `name` (any case), by its own spelling. */
-function tableOrSheet(wb: XlsxWorkbook, name: string): string | undefined {
-  const key = name.toLowerCase();
-  return wb.tables.find((t) => t.name.toLowerCase() === key)?.name ?? wb.sheets.find((s) => s.name.toLowerCase() === key)?.name;
 }
 
 /**
