@@ -158,7 +158,7 @@ function connectors(rows: readonly Row[], yOf: (i: number) => number): string {
       const kids = rows.map((r, i) => (r.parent === p && r.side === side ? i : -1)).filter((i) => i >= 0);
       if (kids.length === 0) continue;
       const ys = kids.map(yOf);
-      // Upstream: loads flow down the trunk into the parent. Downstream: out along each stub.
+      // Upstream: loads flow down the trunk into the parent. Downstream: out along each short branch line.
       if (side === "up") out += arrow(tx, Math.min(...ys), tx, yOf(p) - half, PALETTE.load, 1, 5);
       else out += line(tx, yOf(p) + half, tx, Math.max(...ys), PALETTE.reaction, 1);
       for (const k of kids) {
