@@ -48,7 +48,9 @@ function cellValue(cell: ExcelJS.Cell): unknown {
 }
 
 function fmt(v: unknown, digits = 2): string {
-  if (typeof v === "number") return v.toFixed(digits);
+  // Round-off below 12 significant figures is removed first, so two equal results print alike
+  // (13.754999999999 and 13.755 both as 13.76).
+  if (typeof v === "number") return Number(v.toPrecision(12)).toFixed(digits);
   if (v === null || v === undefined || v === "") return "";
   if (typeof v === "object" && v !== null && "error" in v) return String((v as { error: string }).error);
   return String(v);
