@@ -67,6 +67,20 @@ describe("sheet plan", () => {
     expect(plan!.cells[13]![4]).toEqual({ formula: "Members!$K$2+Members!$C$2" });
   });
 
+  it("overhang columns present but blank (null, empty or spaces, as Excel reads them): no overhang, no supports argument", () => {
+    for (const blank of [null, "", "  "]) {
+      const { plan } = build(
+        [[...MEMBERS, "Start overhang", "End overhang"], ["J", "joist", 4, "F", 0.6, "W", null, "W", null, null, blank, blank], ["W", "wall"]],
+        [["Zone", "D"], ["F", 1.5]],
+        "SI",
+      );
+      const f = formulasOfRow(plan!, "J");
+      expect(f).toContain("LOADPATH.REACTION($D13,M13,1)");
+      expect(f.some((x) => x.includes("$E13"))).toBe(false);
+      expect(cellsOfRow(plan!, "J")[4]).toBeUndefined();
+    }
+  });
+
   it("carries reducible live load apart only when some live load is not reducible", () => {
     const zones = [["Zone", "D", "L", "Reducible"], ["OFF", 50, 50, "yes"], ["STOR", 50, 125, "no"]];
     const one = build([MEMBERS, ["B", "beam", 20, "OFF", 6, "W", null, "W", null, null], ["W", "wall"]], zones);
