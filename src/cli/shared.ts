@@ -3,6 +3,7 @@
  * refusal to write over it, and anything thrown reported as `loadpath <verb>: message` with the
  * usage exit status.
  */
+import { statSync } from "node:fs";
 import { resolve } from "node:path";
 import { parseArgs, type ParseArgsConfig } from "node:util";
 import { EXIT, type CliIO } from "./main";
@@ -58,6 +59,24 @@ export function singleInput(verb: string, usage: string, positionals: readonly s
 }
 
 /**
+ * Whether two paths name the same file: the same resolved path, or (both existing) the same file
+ * on disk, so a symbolic or hard link to the input, or another spelling of it on a
+ * case-insensitive disk, is the input too.
+ * @param a - a path
+ * @param b - another path
+ */
+export function sameFile(a: string, b: string): boolean {
+  if (resolve(a) === resolve(b)) return true;
+  try {
+    const sa = statSync(a);
+    const sb = statSync(b);
+    return sa.dev === sb.dev && sa.ino === sb.ino;
+  } catch {
+    return false;
+  }
+}
+
+/**
  * Whether a file to write is the input itself (then the message is printed): the input is never
  * written over.
  * @param verb - the verb, for the message
@@ -66,7 +85,7 @@ export function singleInput(verb: string, usage: string, positionals: readonly s
  * @param io - output streams
  */
 export function writesOverInput(verb: string, input: string, targets: readonly (string | undefined)[], io: CliIO): boolean {
-  const target = targets.find((t) => t !== undefined && resolve(t) === resolve(input));
+  const target = targets.find((t) => t !== undefined && sameFile(t, input));
   if (target === undefined) return false;
   io.err(`loadpath ${verb}: ${target} is the input file; name another file, the input is never written over.`);
   return true;

@@ -4,7 +4,7 @@
  * process (src/cli/main.ts) with the built functions bundle. Needs `npm run build`.
  */
 import { createHash } from "node:crypto";
-import { existsSync, mkdtempSync, readFileSync } from "node:fs";
+import { existsSync, linkSync, mkdtempSync, readFileSync, symlinkSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { describe, expect, it } from "vitest";
@@ -86,6 +86,24 @@ describe("loadpath takedown", () => {
     const r = await run(copy, "-o", copy);
     expect(r.status).toBe(2);
     expect(r.err[0]).toMatch(/input file/);
+    expect(digest(copy)).toBe(before);
+  });
+
+  it("never writes over the input through a symbolic or hard link to it", async () => {
+    const copy = join(dir, "linked.xlsx");
+    await workbook(copy, { Zones: [["Zone", "D"], ["F", 50]], Members: [["Mark", "Type", "Span", "Zone", "Trib", "Start support", "End support"], ["B1", "beam", 10, "F", 2, "W", "W"], ["W", "wall"]] });
+    const before = digest(copy);
+    const soft = join(dir, "soft-link.xlsx");
+    const hard = join(dir, "hard-link.xlsx");
+    symlinkSync(copy, soft);
+    linkSync(copy, hard);
+    for (const target of [soft, hard]) {
+      const r = await run(copy, "-o", target);
+      expect(r.status, target).toBe(2);
+      expect(r.err[0]).toMatch(/input file/);
+      const j = await run(copy, "--json", target);
+      expect(j.status, target).toBe(2);
+    }
     expect(digest(copy)).toBe(before);
   });
 
