@@ -128,11 +128,14 @@ describe("loadpath recalc", () => {
     expect(r.stdout).toMatch(/nothing written \(no -o\)/);
   });
 
-  it("replaces the input only when -o names it", async () => {
+  it("never writes over the input, even when -o names it", async () => {
     const input = join(dir, "inplace.xlsx");
     await memberWorkbook(input, 20, 1);
-    expect(run("recalc", input, "-o", input).status).toBe(0);
-    checkSheet(await readBack(input), 20, 1);
+    const before = readFileSync(input);
+    const r = run("recalc", input, "-o", input);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/is the input file/);
+    expect(readFileSync(input).equals(before)).toBe(true);
   });
 
   it("usage and file errors exit 2 with a message", () => {

@@ -3,6 +3,7 @@
  * on the sample workbooks, run through the dispatcher as a user runs them; what they print,
  * their exit statuses, and that the files they write call no add-in function.
  */
+import { copyFileSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { main, type CliIO } from "../../src/cli/main";
@@ -77,6 +78,12 @@ describe("loadpath export", () => {
     const input = join(SAMPLES, "steel-office-us.xlsx");
     expect((await run("export", input)).code).toBe(2);
     expect((await run("export", input, "-o", input)).code).toBe(2);
+    // The JSON named as the input would write over it too (a copy, so a failure cannot harm the sample).
+    const copy = join(scratch.dir, "input-copy.xlsx");
+    copyFileSync(input, copy);
+    const before = readFileSync(copy);
+    expect((await run("export", copy, "-o", join(scratch.dir, "w.xlsx"), "--json", copy)).code).toBe(2);
+    expect(readFileSync(copy).equals(before)).toBe(true);
     expect((await run("export", input, "-o", join(scratch.dir, "x.xlsx"), "--units", "metric")).code).toBe(2);
     const half = await run("export", input, "-o", join(scratch.dir, "y.xlsx"), "--zones", "Zones");
     expect(half.code).toBe(2);

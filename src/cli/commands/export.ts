@@ -19,7 +19,7 @@ import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-b
 import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
 import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, usageOnThrow } from "../shared";
+import { parseVerbArgs, usageOnThrow, writesOverInput } from "../shared";
 import { tableOrSheet } from "../takedown-input";
 
 const USAGE = `Usage: loadpath export <in.xlsx> -o <handoff.xlsx> [options]
@@ -289,10 +289,7 @@ const exportCommand: Command = {
       io.err(`loadpath export: ${input === undefined ? "no input workbook given" : v.output === undefined ? "no output file given (-o)" : "one input workbook at a time"}.\n\n${USAGE}`);
       return EXIT.usage;
     }
-    if (resolve(v.output) === resolve(input)) {
-      io.err("loadpath export: the hand-off file must not replace the input; name another output.");
-      return EXIT.usage;
-    }
+    if (writesOverInput("export", input, [v.output, v.json], io)) return EXIT.usage;
     const units = v.units?.toUpperCase();
     if (units !== undefined && units !== "US" && units !== "SI") {
       io.err(`loadpath export: --units "${v.units}" is not US or SI.`);

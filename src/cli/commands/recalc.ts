@@ -6,13 +6,13 @@
 import { resolve } from "node:path";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx, type CellProblem, type RecalcSummary } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, singleInput, usageOnThrow } from "../shared";
+import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
 
 const USAGE = `Usage: loadpath recalc <in.xlsx> [-o <out.xlsx>]
 
 Recalculates every formula of the workbook (LOADPATH functions included) and writes it to
 <out.xlsx> with the computed values cached, so it reads correctly without the add-in. Without -o
-nothing is written (a check only). The input is replaced only when -o names it.
+nothing is written (a check only). The input is never written over.
 
 Errors are listed on stderr as Sheet!A1: message (unknown functions, circular references,
 formula errors). Exit status: 0 when every LOADPATH call succeeded, 1 when any returned an
@@ -61,6 +61,7 @@ const recalc: Command = {
     if (!parsed) return EXIT.usage;
     const input = singleInput("recalc", USAGE, parsed.positionals, io);
     if (input === undefined) return EXIT.usage;
+    if (writesOverInput("recalc", input, [parsed.values.output], io)) return EXIT.usage;
     return usageOnThrow("recalc", io, () => recalcFile(input, parsed.values.output, io));
   },
 };
