@@ -27,7 +27,7 @@ import { ProblemList, SummaryView } from "./Results";
 
 /** The caution every surface carries (design.md section 6). */
 export const CAUTION =
-  "Results are a calculation aid: a qualified engineer must review them, and the codes adopted where the building stands govern.";
+  "Results are a calculation aid: a qualified engineer must review them; local codes govern (the codes adopted where the building stands).";
 
 const useStyles = makeStyles({
   pane: { display: "flex", flexDirection: "column", minWidth: "280px", maxWidth: "640px", boxSizing: "border-box" },
