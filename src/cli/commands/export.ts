@@ -21,6 +21,7 @@ import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } fr
 import { EXIT, type CliIO, type Command } from "../main";
 import { parseVerbArgs, usageOnThrow, writesOverInput } from "../shared";
 import { tableOrSheet } from "../takedown-input";
+import { describeTakedownProblem } from "./takedown";
 
 const USAGE = `Usage: loadpath export <in.xlsx> -o <handoff.xlsx> [options]
 
@@ -248,7 +249,7 @@ export async function exportHandoff(input: string, output: string, options: Expo
 
 /** The lines printed for a report. */
 export function reportLines(report: ExportReport, output: string): { out: string[]; err: string[] } {
-  const err = report.problems.map((p) => `${p.sheet}!${p.cell}: ${p.message}`);
+  const err = report.problems.map(describeTakedownProblem);
   if (!report.ok) return { out: [], err: [...err, "loadpath export: problems stopped the takedown; nothing written."] };
   const out = [`Hand-off workbook written to ${output}.`];
   if (report.takedowns.length === 0) out.push("No takedown sheet or Zones and Members tables found (give --zones and --members to build one).");
