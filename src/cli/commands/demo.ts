@@ -7,6 +7,7 @@ import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import type ExcelJS from "exceljs";
+import { denoise } from "../../taskpane/diagrams/format";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../main";
 import { gravityLoadsPart } from "./demo-gravity-loads";
@@ -48,9 +49,8 @@ function cellValue(cell: ExcelJS.Cell): unknown {
 }
 
 function fmt(v: unknown, digits = 2): string {
-  // Round-off below 12 significant figures is removed first, so two equal results print alike
-  // (13.754999999999 and 13.755 both as 13.76).
-  if (typeof v === "number") return Number(v.toPrecision(12)).toFixed(digits);
+  // Round-off is removed first, so two equal results print alike (13.754999999999 and 13.755 as 13.76).
+  if (typeof v === "number") return denoise(v).toFixed(digits);
   if (v === null || v === undefined || v === "") return "";
   if (typeof v === "object" && v !== null && "error" in v) return String((v as { error: string }).error);
   return String(v);

@@ -31,7 +31,7 @@ export function formatValue(value: number, significant = 3): string {
  * floating-point noise (19.849999999999998 and 19.850000000000001, the two reactions of a
  * symmetric beam) print alike.
  */
-function denoise(value: number): number {
+export function denoise(value: number): number {
   return Number(value.toPrecision(12));
 }
 
