@@ -7,3 +7,4 @@ export * from "./envelope";
 export { DEFAULT_PATTERNED, type MemberCases } from "./member-cases";
 export { ENUMERATION_LIMIT, type PatternRecord } from "./patterns";
 export { memberSegments, type MemberSegment } from "./segments";
+export * from "./deflection-limits";
