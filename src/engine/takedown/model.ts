@@ -115,6 +115,17 @@ export interface TakedownModel {
   readonly zones: ReadonlyMap<string, Zone>;
   readonly members: readonly Member[];
   readonly loads: readonly ExtraLoad[];
+  /**
+   * Input cells that hold a number stored as text (" 24.5 ", "1e3", common after a CSV import),
+   * by {@link cellKey}: the checks read them as that number, so the written formulas convert them
+   * (VALUE) rather than hand text to a function or a sum.
+   */
+  readonly textNumbers: ReadonlySet<string>;
+}
+
+/** Key of a cell in {@link TakedownModel.textNumbers}. */
+export function cellKey(cell: CellRef): string {
+  return `${cell.sheet}\u0000${cell.row}\u0000${cell.col}`;
 }
 
 /** The tables a model is read from (Loads optional). */
@@ -130,6 +141,7 @@ class RowReader<K extends string> {
     readonly table: MatchedTable<K>,
     readonly rowIndex: number,
     readonly problems: Problem[],
+    readonly textNumbers: Set<string>,
   ) {}
 
   has(key: K): boolean {
@@ -164,20 +176,21 @@ class RowReader<K extends string> {
       this.report(key, "badValue", `${what} "${n.text}" is not a number.`, mark);
       return { input: { value: null, cell }, bad: true };
     }
+    if (n.kind === "number" && typeof this.raw(key) === "string") this.textNumbers.add(cellKey(cell));
     return { input: { value: n.kind === "number" ? n.value : null, cell }, bad: false };
   }
 }
 
-function rowsOf<K extends string>(table: MatchedTable<K>, problems: Problem[]): RowReader<K>[] {
-  return table.rows.map((i) => new RowReader(table, i, problems));
+function rowsOf<K extends string>(table: MatchedTable<K>, problems: Problem[], textNumbers: Set<string>): RowReader<K>[] {
+  return table.rows.map((i) => new RowReader(table, i, problems, textNumbers));
 }
 
 /** Read the Zones table. */
-function readZones(table: MatchedTable<ZonesColumn>, problems: Problem[]): Map<string, Zone> {
+function readZones(table: MatchedTable<ZonesColumn>, problems: Problem[], textNumbers: Set<string>): Map<string, Zone> {
   const zones = new Map<string, Zone>();
   const cases = LOAD_CASES.filter((c) => table.columns[c] !== undefined);
   if (cases.length === 0) problems.push(problemAt(table.data, 0, 0, "missingColumn", "The Zones table has none of the load case columns D, L, Lr, S, R."));
-  for (const r of rowsOf(table, problems)) {
+  for (const r of rowsOf(table, problems, textNumbers)) {
     const name = r.text("zone");
     if (name === "") {
       r.report("zone", "badValue", "This Zones row has loads but no zone name.");
@@ -251,10 +264,10 @@ function readMember(r: RowReader<MembersColumn>, index: number, zones: ReadonlyM
 }
 
 /** Read the Members table. */
-function readMembers(table: MatchedTable<MembersColumn>, zones: ReadonlyMap<string, Zone>, problems: Problem[]): Member[] {
+function readMembers(table: MatchedTable<MembersColumn>, zones: ReadonlyMap<string, Zone>, problems: Problem[], textNumbers: Set<string>): Member[] {
   const members: Member[] = [];
   const firstRow = new Map<string, CellRef>();
-  for (const r of rowsOf(table, problems)) {
+  for (const r of rowsOf(table, problems, textNumbers)) {
     const mark = r.text("mark");
     if (mark === "") {
       r.report("mark", "badValue", "This Members row has values but no mark.");
@@ -338,10 +351,11 @@ function casesOf(zones: ReadonlyMap<string, Zone>, members: readonly Member[], l
  */
 export function readModel(tables: ModelTables, units: UnitSystem): { model: TakedownModel; problems: Problem[] } {
   const problems: Problem[] = [];
-  const zones = readZones(tables.zones, problems);
-  const members = readMembers(tables.members, zones, problems);
-  const loads = tables.loads ? rowsOf(tables.loads, problems).map((r) => readLoad(r, zones)) : [];
-  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads }, problems };
+  const textNumbers = new Set<string>();
+  const zones = readZones(tables.zones, problems, textNumbers);
+  const members = readMembers(tables.members, zones, problems, textNumbers);
+  const loads = tables.loads ? rowsOf(tables.loads, problems, textNumbers).map((r) => readLoad(r, zones)) : [];
+  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads, textNumbers }, problems };
 }
 
 /** Length of a member at build time: start overhang + span + end overhang (null when the span is unknown). */
