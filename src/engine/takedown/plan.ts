@@ -341,7 +341,9 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   }
   const at = ch(ctx, "AT");
   if (at !== undefined) {
-    grid.set(row, layout.areaT, live.includes(at) ? f(`${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)}`) : 0);
+    // A_T is an area, never negative: a member that only takes the uplift end of an overhanging
+    // member it carries gets 0 (no reduction, the conservative reading), in both versions alike.
+    grid.set(row, layout.areaT, live.includes(at) ? f(`MAX(0,${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)})`) : 0);
     grid.set(row, layout.kll, f(kllFormula(ctx, m, "flexural")));
     grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
   }
@@ -396,7 +398,7 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
     const liveIndex = ch(ctx, "L");
     const here = liveIndex !== undefined && live.includes(liveIndex) ? `IF(${a1(row, layout.arriving[liveIndex]!)}>0,1,0)` : "0";
     const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
-    grid.set(row, layout.areaT, f(totalOf("AT")));
+    grid.set(row, layout.areaT, f(`MAX(0,${totalOf("AT")})`));
     grid.set(row, layout.floors, f(here + floorsAbove));
     grid.set(row, layout.kll, f(kllFormula(ctx, m, "column")));
     grid.set(row, layout.kllAt, f(`${a1(row, layout.kll)}*${a1(row, layout.areaT)}`));
