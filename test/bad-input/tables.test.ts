@@ -175,7 +175,7 @@ describe("class E: validation gaps", () => {
       const written = JSON.parse(JSON.stringify(built.result.json)) as { members: Record<string, { reactions: { D: number[] } }>; foundations: Record<string, { D: number }> };
       expect(Object.keys(written.members).sort()).toEqual([...marks].sort());
       for (const k of marks) expect(written.members[k]!.reactions.D[0]).toBeCloseTo((50 * 5 * 20) / 2000, 12);
-      expect(written.foundations.valueOf!.D).toBeCloseTo((4 * 50 * 5 * 20) / 1000, 12);
+      expect(written.foundations["valueOf"]!.D).toBeCloseTo((4 * 50 * 5 * 20) / 1000, 12);
       // A mark that is not in the takedown is not found through the object's inherited names.
       expect(built.result.json!.columns.toString).toBeUndefined();
       expect(built.result.built!.rowsByMember.__proto__).toBeDefined();
