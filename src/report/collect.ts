@@ -9,6 +9,10 @@
 import { createNativeWriter } from "../engine/native/takedown-writer";
 import { checkPath, planTakedown, readResults, type SheetPlan, type TakedownModel } from "../engine/takedown";
 import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-loads";
+import { isFlexural } from "../engine/takedown/model";
+import { a1 } from "../engine/a1";
+import { governingCombination } from "./factored";
+import type { Problem } from "../workbook/takedown-api";
 import { cellAddress, sheetRef } from "../workbook/a1";
 import type { CellValue, WorkbookPort } from "../workbook/port";
 import { DEFAULT_TAKEDOWN_SHEET, sheetTitle } from "../workbook/takedown-build";
@@ -77,5 +81,74 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const diff = difference(again, json, "results");
   if (diff !== null) throw new Error(`the takedown sheet read back for the report disagrees with the build (${diff}).`);
   const path = checkPath(model);
-  return { options, model, plan, levels: planned.levels, json, members: loadsOfMembers({ model, plan, deliveries: path.deliveries, placedLoads: path.placedLoads, read }) };
+  const memberLoads = loadsOfMembers({ model, plan, deliveries: path.deliveries, placedLoads: path.placedLoads, read });
+  const gaps = reportGaps(plan, model, memberLoads, json.problems);
+  return { options, model, plan, levels: planned.levels, json: gaps.length === 0 ? json : { ...json, problems: [...json.problems, ...gaps] }, members: memberLoads };
+}
+
+/** First path in a value where a number is not finite (the report would print "?" there), or null. */
+function firstNonFinite(value: unknown, path: string): string | null {
+  if (typeof value === "number") return Number.isFinite(value) ? null : path;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const p = firstNonFinite(value[i], `${path}[${i}]`);
+      if (p !== null) return p;
+    }
+    return null;
+  }
+  if (value !== null && typeof value === "object") {
+    for (const k of Object.keys(value)) {
+      const p = firstNonFinite((value as Record<string, unknown>)[k], `${path}.${k}`);
+      if (p !== null) return p;
+    }
+  }
+  return null;
+}
+
+/** Largest magnitude of the numbers in a value. */
+function largest(value: unknown): number {
+  if (typeof value === "number") return Math.abs(value);
+  if (value !== null && typeof value === "object") return Math.max(0, ...Object.values(value as Record<string, unknown>).map(largest));
+  return 0;
+}
+
+/**
+ * Numbers the report prints that are not finite (it would show "?"): each member with one is a
+ * listed problem at its row of the generated sheet, unless the build already listed the member's
+ * results. The report never prints "?" silently.
+ * @param plan - the plan written
+ * @param model - the model
+ * @param members - every member's loads, supports and reactions read back
+ * @param listed - problems the build already listed
+ */
+export function reportGaps(plan: SheetPlan, model: TakedownModel, members: ReadonlyMap<string, MemberLoads>, listed: readonly Problem[]): Problem[] {
+  const done = new Set(listed.filter((p) => p.code === "errorResult" && p.mark !== undefined).map((p) => p.mark!));
+  const out: Problem[] = [];
+  for (const place of plan.places) {
+    const mark = model.members[place.member]!.mark;
+    const m = members.get(mark);
+    if (m === undefined || done.has(mark)) continue;
+    const printed = {
+      length: isFlexural(m.type) ? m.length : null,
+      supports: m.supports.map((s) => s.x),
+      loads: m.loads.map((l) => ({ magnitudes: l.magnitudes, width: l.width, start: l.start, end: l.end })),
+      reactions: m.reactions,
+      liveReduction: m.liveReduction,
+    };
+    let gap = firstNonFinite(printed, mark);
+    // Factoring can only overflow numbers already near the largest double: skip the exact solution otherwise.
+    if (gap === null && isFlexural(m.type) && largest(printed) > 1e300) {
+      const g = governingCombination(m);
+      if (g !== null) gap = firstNonFinite({ magnitudes: g.magnitudes, reactions: g.reactions, shearMax: g.shearMax, momentMax: g.momentMax }, `${mark} governing combination`);
+    }
+    if (gap === null) continue;
+    out.push({
+      code: "errorResult",
+      message: `${mark}: the report cannot print ${gap} (not a finite number; shown as "?"). Check the member's inputs and the generated sheet's row.`,
+      sheet: plan.sheet,
+      cell: a1(place.row, 0),
+      mark,
+    });
+  }
+  return out;
 }

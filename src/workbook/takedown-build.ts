@@ -6,7 +6,7 @@
  */
 import { cellAddress, sheetRef } from "./a1";
 import { createNativeWriter, type NativeFormulaWriter } from "../engine/native/takedown-writer";
-import { FATAL_CODES, planTakedown, readResults, summarize, type CellReader, type PlanCell, type SheetPlan, type TableData } from "../engine/takedown";
+import { byMark, FATAL_CODES, planTakedown, readResults, scanJson, scanResults, summarize, type CellReader, type PlanCell, type SheetPlan, type TableData } from "../engine/takedown";
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
 import type { BuildTakedown, BuiltTakedown, MemberRows, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
 
@@ -63,6 +63,31 @@ async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise
   const members = await read(options.members, "Members");
   const loads = options.loads ? await read(options.loads, "Loads") : undefined;
   return { ...(zones ? { zones } : {}), ...(members ? { members } : {}), ...(loads ? { loads } : {}), problems };
+}
+
+/**
+ * A generated sheet (the takedown's, or the hand-off version's helper sheet) that would be written
+ * over a sheet holding one of the tables being read: refused before anything is written, even
+ * when replacing is allowed.
+ */
+function tableSheetClash(inputs: { zones?: TableData; members?: TableData; loads?: TableData }, generated: readonly string[], options: TakedownOptions): Problem | null {
+  const tables: [TableData | undefined, string, string][] = [
+    [inputs.zones, "Zones", options.zones],
+    [inputs.members, "Members", options.members],
+    [inputs.loads, "Loads", options.loads ?? ""],
+  ];
+  for (const name of generated) {
+    for (const [data, role, ref] of tables) {
+      if (data === undefined || data.sheet.toLowerCase() !== name.toLowerCase()) continue;
+      return {
+        code: "foreignSheet",
+        message: `The generated sheet "${name}" would be written over the sheet "${data.sheet}", which holds the ${role} table ("${ref}") being read; choose another name for the generated sheet.`,
+        sheet: data.sheet,
+        cell: "A1",
+      };
+    }
+  }
+  return null;
 }
 
 /** Rows from..to (exclusive) of the plan as a dense block. */
@@ -145,7 +170,7 @@ function readerOf(chunks: readonly RangeData[]): CellReader {
  * @param model - the model it was planned from
  */
 export function rowsByMemberOf(plan: SheetPlan, model: BuiltTakedown["model"]): Record<string, MemberRows> {
-  const out: Record<string, MemberRows> = {};
+  const out = byMark<MemberRows>();
   for (const p of plan.places) out[model.members[p.member]!.mark] = { row: p.row, rows: p.rows };
   return out;
 }
@@ -178,6 +203,8 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   });
   const problems: Problem[] = [...inputs.problems, ...planned.problems];
   if (!planned.plan || !planned.model || problems.some((p) => FATAL_CODES.has(p.code))) return { ok: false, problems };
+  const overTable = tableSheetClash(inputs, [sheet, ...(writer ? [writer.helperSheet] : [])], options);
+  if (overTable) return { ok: false, problems: [...problems, overTable] };
   await report(progress, 0.3, "Preparing the sheet");
   try {
     await port.prepareSheet(sheet, title, options.replaceForeign === true);
@@ -191,7 +218,11 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   await report(progress, 0.8, "Calculating");
   await port.flush();
   const read = await readBack(port, planned.plan, progress);
-  const json: TakedownJson = readResults(planned.plan, planned.model, read, problems);
+  // Any error value or non-finite number among the results is a listed problem, never silent.
+  problems.push(...scanResults(planned.plan, planned.model, read));
+  const read0 = readResults(planned.plan, planned.model, read, problems);
+  problems.push(...scanJson(read0, planned.plan, planned.model, problems));
+  const json: TakedownJson = { ...read0, problems };
   const summary = summarize(json, planned.plan, planned.model, planned.levels);
   await report(progress, 1, "Done");
   // Every flexural member of a takedown rests on two supports, so the hand-off writer spells all of them.

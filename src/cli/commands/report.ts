@@ -121,6 +121,8 @@ export async function reportOfFile(input: string, run: TakedownRun, report: Repo
     return { status: EXIT.failed };
   }
   const record = await collectTakedown(port, options, result.json);
+  // Numbers the report could not print are problems too (collectTakedown lists them after the build's).
+  for (const p of record.json.problems.slice(result.problems.length)) io.err(describeTakedownProblem(p));
   const members = report.members ?? allMembers(record);
   const unknown = members.filter((m) => !record.members.has(m));
   if (unknown.length > 0) {
@@ -128,7 +130,7 @@ export async function reportOfFile(input: string, run: TakedownRun, report: Repo
     return { status: EXIT.usage };
   }
   const html = renderReport({ record, project: report.project ?? projectName(workbook, input), sourceFile: basename(input), date: report.date ?? today(), members, generator: "Loadpath" });
-  return { status: result.problems.length > 0 ? EXIT.failed : EXIT.ok, html, record };
+  return { status: record.json.problems.length > 0 ? EXIT.failed : EXIT.ok, html, record };
 }
 
 const report: Command = {

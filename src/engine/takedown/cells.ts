@@ -1,6 +1,15 @@
 /** Reading single cells of the input tables: text, numbers and yes/no, with the reason a cell is unusable. */
 import type { CellValue } from "./types";
 
+/** Error values a spreadsheet shows in a cell ("#VALUE!", "#N/A", "#NAME?", ...). */
+const ERROR_TEXT = /^#(NULL!|DIV\/0!|VALUE!|REF!|NAME\?|NUM!|N\/A|GETTING_DATA|SPILL!|CALC!|BUSY!|FIELD!|BLOCKED!|CONNECT!|UNKNOWN!|EXTERNAL!|PYTHON!|CYCLE!|ERROR!)$/i;
+
+/** True when a cell's value is a spreadsheet error value. */
+export function isErrorValue(v: CellValue | undefined): boolean {
+  return typeof v === "string" && ERROR_TEXT.test(v.trim());
+}
+
+
 /** A cell read as text: trimmed, numbers and booleans spelled out, blank -> "". */
 export function textOf(value: CellValue | undefined): string {
   if (value === null || value === undefined) return "";

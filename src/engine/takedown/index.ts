@@ -4,18 +4,20 @@
  * tables given and the cells returned.
  */
 import { a1 } from "./a1";
-import { readModel, type TakedownModel } from "./model";
+import { isFlexural, readModel, type TakedownModel } from "./model";
 import { orderTakedown } from "./order";
 import { planSheet, type SheetPlan } from "./plan";
 import { LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC } from "./tables";
-import { checkPath } from "./validate";
+import { checkPath, type CheckedPath } from "./validate";
 import type { FormulaWriter } from "./formulas";
 import type { Problem, TableData, UnitSystem } from "./types";
 
 export * from "./types";
 export { ADD_IN_WRITER, type FormulaWriter, type ChannelRefs, type MemberRefs } from "./formulas";
 export { CAUTION, planSheet, type PlanCell, type SheetPlan, type MemberPlace } from "./plan";
-export { readResults, summarize, gravityCombos, type TakedownResults, type Summary, type CellReader, type MemberResult, type ColumnResult } from "./results";
+export { readResults, byMark, summarize, gravityCombos, type TakedownResults, type Summary, type CellReader, type MemberResult, type ColumnResult } from "./results";
+export { scanResults, scanJson } from "./scan";
+export { isErrorValue } from "./cells";
 export { matchTable, splitHeader, ZONES_SPEC, MEMBERS_SPEC, LOADS_SPEC, type MatchedTable } from "./tables";
 export { readModel, type TakedownModel, type Member, type MemberType, type Zone } from "./model";
 export { checkPath, type Delivery } from "./validate";
@@ -48,7 +50,47 @@ export interface TakedownInput {
 }
 
 /** Problems that stop a build: the tables cannot be read as meant. */
-export const FATAL_CODES: ReadonlySet<Problem["code"]> = new Set(["missingTable", "missingColumn", "unitMismatch", "foreignSheet"]);
+export const FATAL_CODES: ReadonlySet<Problem["code"]> = new Set(["missingTable", "missingColumn", "unitMismatch", "foreignSheet", "emptyTable"]);
+
+/**
+ * Most load rows a member's loads argument may have: the LOADPATH beam functions accept at most
+ * 1000 (src/functions/spill.ts, MAX_LOAD_ROWS; a test keeps the two equal).
+ */
+export const MAX_MEMBER_LOAD_ROWS = 1000;
+
+/**
+ * Beams, girders and joists that would carry more load rows than the worksheet functions accept
+ * are left out of the takedown with a problem at their mark (never a sheet of #VALUE!); so are
+ * the loads they would receive. The same rule holds in the hand-off version, so both versions
+ * build the same members.
+ */
+function withoutOverloaded(model: TakedownModel, path: CheckedPath): { model: TakedownModel; path: CheckedPath; problems: Problem[] } {
+  const rows = new Map<number, number>();
+  const add = (i: number): void => void rows.set(i, (rows.get(i) ?? 0) + 1);
+  for (const m of model.members) if (m.valid && isFlexural(m.type) && (m.zone !== null || Object.keys(m.extra).length > 0)) add(m.index);
+  for (const p of path.placedLoads) add(p.member);
+  for (const d of path.deliveries) add(d.to);
+  const over = new Set<number>();
+  const problems: Problem[] = [];
+  for (const [i, n] of rows) {
+    const m = model.members[i]!;
+    if (!isFlexural(m.type) || n <= MAX_MEMBER_LOAD_ROWS) continue;
+    over.add(i);
+    problems.push({
+      code: "tooManyLoads",
+      message: `${m.mark}: carries ${n} loads (its zone load, Loads rows and the members it carries); the worksheet functions take at most ${MAX_MEMBER_LOAD_ROWS} load rows per member, so ${m.mark} is left out of the takedown. Split it into shorter members, or combine loads.`,
+      sheet: m.markCell.sheet,
+      cell: a1(m.markCell.row, m.markCell.col),
+      mark: m.mark,
+    });
+  }
+  if (over.size === 0) return { model, path, problems };
+  return {
+    model: { ...model, members: model.members.map((m) => (over.has(m.index) ? { ...m, valid: false } : m)) },
+    path: { ...path, deliveries: path.deliveries.filter((d) => !over.has(d.to) && !over.has(d.from)), placedLoads: path.placedLoads.filter((p) => !over.has(p.member)) },
+    problems,
+  };
+}
 
 /** Outcome of {@link planTakedown}. */
 export interface TakedownPlan {
@@ -75,12 +117,18 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
     const d = input.members;
     headerProblems.push({ code: "missingColumn", message: "The Members table has a Zone column but no Trib column: zone loads need a trib width.", sheet: d.sheet, cell: a1(d.top, d.left) });
   }
+  if (!headerProblems.some((p) => FATAL_CODES.has(p.code)) && members.table.rows.length === 0) {
+    const d = input.members;
+    headerProblems.push({ code: "emptyTable", message: `The Members table ("${d.sheet}") has no members: no row below its header holds a value.`, sheet: d.sheet, cell: a1(d.top, d.left) });
+  }
   if (headerProblems.some((p) => FATAL_CODES.has(p.code))) return { problems: headerProblems, plan: null, model: null, levels: [] };
   const read = readModel({ zones: zones.table, members: members.table, ...(loads ? { loads: loads.table } : {}) }, input.units);
-  const path = checkPath(read.model);
-  const ordered = orderTakedown(read.model, path.deliveries);
+  const checked = withoutOverloaded(read.model, checkPath(read.model));
+  const path = checked.path;
+  const model = checked.model;
+  const ordered = orderTakedown(model, path.deliveries);
   const plan = planSheet({
-    model: read.model,
+    model,
     order: ordered.order,
     deliveries: path.deliveries,
     placedLoads: path.placedLoads,
@@ -88,6 +136,6 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
     title: input.title,
     ...(input.writer ? { writer: input.writer } : {}),
   });
-  return { problems: [...headerProblems, ...read.problems, ...path.problems, ...ordered.problems], plan, model: read.model, levels: ordered.levels };
+  return { problems: [...headerProblems, ...read.problems, ...path.problems, ...checked.problems, ...ordered.problems], plan, model, levels: ordered.levels };
 }
 

@@ -4,7 +4,7 @@
  * Every unusable cell becomes a problem naming its cell; a member with a problem on its own row
  * is left out of the takedown, the others still build.
  */
-import { formatNumber, numberOf, textOf, yesNoOf } from "./cells";
+import { formatNumber, isErrorValue, numberOf, textOf, yesNoOf } from "./cells";
 import { problemAt, tableCell, type LoadsColumn, type MatchedTable, type MembersColumn, type ZonesColumn } from "./tables";
 import { LOAD_CASES, type CellRef, type CellValue, type LoadCase, type Problem, type UnitSystem } from "./types";
 
@@ -22,6 +22,11 @@ export const TYPE_WORDS: Readonly<Record<string, MemberType>> = {
   foundation: "foundation",
   footing: "foundation",
 };
+
+/** A word of a fixed vocabulary, never one of the object's inherited names ("constructor", "__proto__"). */
+function wordOf<T>(words: Readonly<Record<string, T>>, key: string): T | undefined {
+  return Object.prototype.hasOwnProperty.call(words, key) ? words[key] : undefined;
+}
 
 /** True for members that bend between two supports (beam, girder, joist). */
 export function isFlexural(type: MemberType): boolean {
@@ -115,6 +120,17 @@ export interface TakedownModel {
   readonly zones: ReadonlyMap<string, Zone>;
   readonly members: readonly Member[];
   readonly loads: readonly ExtraLoad[];
+  /**
+   * Input cells that hold a number stored as text (" 24.5 ", "1e3", common after a CSV import),
+   * by {@link cellKey}: the checks read them as that number, so the written formulas convert them
+   * (VALUE) rather than hand text to a function or a sum.
+   */
+  readonly textNumbers: ReadonlySet<string>;
+}
+
+/** Key of a cell in {@link TakedownModel.textNumbers}. */
+export function cellKey(cell: CellRef): string {
+  return `${cell.sheet}\u0000${cell.row}\u0000${cell.col}`;
 }
 
 /** The tables a model is read from (Loads optional). */
@@ -130,6 +146,7 @@ class RowReader<K extends string> {
     readonly table: MatchedTable<K>,
     readonly rowIndex: number,
     readonly problems: Problem[],
+    readonly textNumbers: Set<string>,
   ) {}
 
   has(key: K): boolean {
@@ -150,6 +167,22 @@ class RowReader<K extends string> {
     return textOf(this.raw(key));
   }
 
+  /**
+   * Report text cells of the row that hold a spreadsheet error value (#N/A, #REF!, ...): a mark,
+   * level, type or support name that is an error is never used as a name.
+   * @returns true when one was found
+   */
+  errorsIn(keys: readonly { key: K; what: string }[], mark?: string): boolean {
+    let found = false;
+    for (const { key, what } of keys) {
+      const v = this.raw(key);
+      if (!isErrorValue(v)) continue;
+      found = true;
+      this.report(key, "badValue", `${mark ? `${mark}: ` : ""}${what} is the error value ${String(v).trim()}; give a ${what.toLowerCase()}.`, mark);
+    }
+    return found;
+  }
+
   report(key: K, code: Problem["code"], message: string, mark?: string): void {
     const col = this.table.columns[key] ?? 0;
     this.problems.push(problemAt(this.table.data, this.rowIndex, col, code, message, mark));
@@ -164,20 +197,22 @@ class RowReader<K extends string> {
       this.report(key, "badValue", `${what} "${n.text}" is not a number.`, mark);
       return { input: { value: null, cell }, bad: true };
     }
+    if (n.kind === "number" && typeof this.raw(key) === "string") this.textNumbers.add(cellKey(cell));
     return { input: { value: n.kind === "number" ? n.value : null, cell }, bad: false };
   }
 }
 
-function rowsOf<K extends string>(table: MatchedTable<K>, problems: Problem[]): RowReader<K>[] {
-  return table.rows.map((i) => new RowReader(table, i, problems));
+function rowsOf<K extends string>(table: MatchedTable<K>, problems: Problem[], textNumbers: Set<string>): RowReader<K>[] {
+  return table.rows.map((i) => new RowReader(table, i, problems, textNumbers));
 }
 
 /** Read the Zones table. */
-function readZones(table: MatchedTable<ZonesColumn>, problems: Problem[]): Map<string, Zone> {
+function readZones(table: MatchedTable<ZonesColumn>, problems: Problem[], textNumbers: Set<string>): Map<string, Zone> {
   const zones = new Map<string, Zone>();
   const cases = LOAD_CASES.filter((c) => table.columns[c] !== undefined);
   if (cases.length === 0) problems.push(problemAt(table.data, 0, 0, "missingColumn", "The Zones table has none of the load case columns D, L, Lr, S, R."));
-  for (const r of rowsOf(table, problems)) {
+  for (const r of rowsOf(table, problems, textNumbers)) {
+    if (r.errorsIn([{ key: "zone", what: "Zone name" }])) continue;
     const name = r.text("zone");
     if (name === "") {
       r.report("zone", "badValue", "This Zones row has loads but no zone name.");
@@ -193,7 +228,13 @@ function readZones(table: MatchedTable<ZonesColumn>, problems: Problem[]): Map<s
     for (const c of cases) {
       // A blank cell: the case does not act on this zone (0 keeps it in the takedown, live).
       const n = r.number(c, `Zone ${name}, ${c}`);
-      if (n.input?.value !== null && n.input !== null) loadCells[c] = n.input.cell;
+      if (n.input === null || n.input.value === null) continue;
+      // Gravity area loads act downward: a negative one is a sign slip (an uplift is not a gravity case).
+      if (n.input.value < 0) {
+        r.report(c, "badValue", `Zone ${name}, ${c} ${formatNumber(n.input.value)} is negative; gravity area loads are entered positive downward (left out).`);
+        continue;
+      }
+      loadCells[c] = n.input.cell;
     }
     const reducible = r.has("reducible") ? yesNoOf(r.raw("reducible")) : false;
     if (reducible === undefined) r.report("reducible", "badValue", `Zone ${name}: Reducible "${r.text("reducible")}" is not yes or no.`);
@@ -208,8 +249,18 @@ const EXTRA_COLUMNS: Readonly<Record<LoadCase, MembersColumn>> = { D: "wD", L: "
 function readMember(r: RowReader<MembersColumn>, index: number, zones: ReadonlyMap<string, Zone>, firstOfMark: boolean): Member {
   const before = r.problems.length;
   const mark = r.text("mark");
-  const typeText = r.text("type").toLowerCase();
-  const type = typeText === "" ? "beam" : TYPE_WORDS[typeText];
+  r.errorsIn(
+    [
+      { key: "type", what: "Type" },
+      { key: "level", what: "Level" },
+      { key: "zone", what: "Zone" },
+      { key: "startSupport", what: "Start support" },
+      { key: "endSupport", what: "End support" },
+    ],
+    mark,
+  );
+  const typeText = isErrorValue(r.raw("type")) ? "" : r.text("type").toLowerCase();
+  const type = typeText === "" ? "beam" : wordOf(TYPE_WORDS, typeText);
   if (type === undefined) r.report("type", "unknownType", `${mark}: type "${r.text("type")}" is not beam, girder, joist, column, wall or foundation.`, mark);
   const memberType = type ?? "beam";
   const span = r.number("span", `${mark}: span`, mark);
@@ -229,7 +280,7 @@ function readMember(r: RowReader<MembersColumn>, index: number, zones: ReadonlyM
   const trib = nonNegative("trib", "trib");
   const kll = r.number("kll", `${mark}: KLL`, mark).input;
   if (kll?.value !== null && kll !== null && kll.value <= 0) r.report("kll", "badValue", `${mark}: KLL ${formatNumber(kll.value)} must be greater than 0.`, mark);
-  const zoneName = r.text("zone");
+  const zoneName = isErrorValue(r.raw("zone")) ? "" : r.text("zone");
   const zone = zoneName === "" ? null : (zones.get(zoneName.toLowerCase()) ?? null);
   if (zoneName !== "" && zone === null) r.report("zone", "unknownZone", `${mark}: zone "${zoneName}" is not in the Zones table.`, mark);
   if (zone !== null && !isFlexural(memberType)) r.report("zone", "badValue", `${mark}: a ${memberType} takes no area load; give the zone to the beams it carries.`, mark);
@@ -251,10 +302,11 @@ function readMember(r: RowReader<MembersColumn>, index: number, zones: ReadonlyM
 }
 
 /** Read the Members table. */
-function readMembers(table: MatchedTable<MembersColumn>, zones: ReadonlyMap<string, Zone>, problems: Problem[]): Member[] {
+function readMembers(table: MatchedTable<MembersColumn>, zones: ReadonlyMap<string, Zone>, problems: Problem[], textNumbers: Set<string>): Member[] {
   const members: Member[] = [];
   const firstRow = new Map<string, CellRef>();
-  for (const r of rowsOf(table, problems)) {
+  for (const r of rowsOf(table, problems, textNumbers)) {
+    if (r.errorsIn([{ key: "mark", what: "Mark" }])) continue;
     const mark = r.text("mark");
     if (mark === "") {
       r.report("mark", "badValue", "This Members row has values but no mark.");
@@ -288,7 +340,7 @@ function readLoad(r: RowReader<LoadsColumn>, zones: ReadonlyMap<string, Zone>): 
     zone = zones.get(what.toLowerCase()) ?? null;
     if (zone === null) r.report("zoneOrCase", "unknownZone", `${label}: zone "${what}" is not in the Zones table.`, mark);
   } else if (kind !== undefined) {
-    loadCase = CASE_WORDS[what.toLowerCase()] ?? null;
+    loadCase = wordOf(CASE_WORDS, what.toLowerCase()) ?? null;
     if (loadCase === null) r.report("zoneOrCase", "badValue", `${label}: "${what}" is not a load case (D, L, Lr, S or R).`, mark);
   }
   const magnitude = r.number("magnitude", `${label}: magnitude`, mark).input;
@@ -338,10 +390,11 @@ function casesOf(zones: ReadonlyMap<string, Zone>, members: readonly Member[], l
  */
 export function readModel(tables: ModelTables, units: UnitSystem): { model: TakedownModel; problems: Problem[] } {
   const problems: Problem[] = [];
-  const zones = readZones(tables.zones, problems);
-  const members = readMembers(tables.members, zones, problems);
-  const loads = tables.loads ? rowsOf(tables.loads, problems).map((r) => readLoad(r, zones)) : [];
-  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads }, problems };
+  const textNumbers = new Set<string>();
+  const zones = readZones(tables.zones, problems, textNumbers);
+  const members = readMembers(tables.members, zones, problems, textNumbers);
+  const loads = tables.loads ? rowsOf(tables.loads, problems, textNumbers).map((r) => readLoad(r, zones)) : [];
+  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads, textNumbers }, problems };
 }
 
 /** Length of a member at build time: start overhang + span + end overhang (null when the span is unknown). */

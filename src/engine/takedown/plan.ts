@@ -13,7 +13,7 @@
 import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
 import { ADD_IN_WRITER, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
 import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
-import { isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
+import { cellKey, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
 import { RESULT_UNITS } from "./units";
 import type { CellRef, CellValue, LoadCase } from "./types";
 import type { Delivery, PlacedLoad } from "./validate";
@@ -121,6 +121,15 @@ function toKips(ctx: Context, term: string, compound: boolean): string {
   return compound ? `(${term})/1000` : `${term}/1000`;
 }
 
+/**
+ * Reference to a number cell of the user's tables: a number stored as text (which the checks
+ * accepted as that number) is converted with VALUE, so no formula, sum or function is handed text.
+ */
+function inputRef(ctx: Context, cell: CellRef): string {
+  const ref = sheetCellRef(cell);
+  return ctx.model.textNumbers.has(cellKey(cell)) ? `VALUE(${ref})` : ref;
+}
+
 /** Channel index of a key, if carried. */
 function ch(ctx: Context, key: string): number | undefined {
   return ctx.channelIndex.get(key);
@@ -136,13 +145,13 @@ function areaMags(ctx: Context, zone: Zone | null, row: number, extra: Readonly<
   for (const c of ctx.model.cases) {
     const zoneCell = zone?.loadCells[c];
     const extraCell = extra[c];
-    const terms = [...(zoneCell ? [`${sheetCellRef(zoneCell)}*${width}`] : []), ...(extraCell ? [sheetCellRef(extraCell)] : [])];
+    const terms = [...(zoneCell ? [`${inputRef(ctx, zoneCell)}*${width}`] : []), ...(extraCell ? [inputRef(ctx, extraCell)] : [])];
     if (terms.length > 0) mags.set(ch(ctx, c)!, toKips(ctx, terms.join("+"), terms.length > 1));
   }
   const liveCell = zone?.loadCells.L;
   if (zone?.reducible && liveCell) {
     const lred = ch(ctx, "Lred");
-    if (lred !== undefined) mags.set(lred, toKips(ctx, `${sheetCellRef(liveCell)}*${width}`, false));
+    if (lred !== undefined) mags.set(lred, toKips(ctx, `${inputRef(ctx, liveCell)}*${width}`, false));
     const at = ch(ctx, "AT");
     // A load of 1 per unit area over the width: its reactions are tributary areas (1* also reads a blank width as 0).
     if (at !== undefined) mags.set(at, `1*${width}`);
@@ -158,14 +167,14 @@ function zoneRow(ctx: Context, m: Member, row: number): LoadRow | null {
   const mags = areaMags(ctx, zone, row, m.extra);
   if (mags.size === 0) return null;
   const parts = [...(zone ? [`zone ${zone.name} × trib`] : []), ...extras.map((c) => `w${c}`)];
-  const width = zone && m.trib ? f(sheetCellRef(m.trib.cell)) : undefined;
+  const width = zone && m.trib ? f(inputRef(ctx, m.trib.cell)) : undefined;
   return { kind: "line", source: parts.join(" + "), ...(width ? { width } : {}), from: null, to: null, mags };
 }
 
 /** A Loads-table row on a member. */
 function extraLoadRow(ctx: Context, p: PlacedLoad, row: number, axial: boolean): LoadRow {
   const l = p.load;
-  const ref = (n: { cell: CellRef } | null): PlanCell | null => (n === null ? null : f(sheetCellRef(n.cell)));
+  const ref = (n: { cell: CellRef } | null): PlanCell | null => (n === null ? null : f(inputRef(ctx, n.cell)));
   const label = `Loads row ${l.sheetRow}`;
   if (l.kind === "area") {
     const partial = l.from?.value != null && l.to?.value != null;
@@ -179,7 +188,7 @@ function extraLoadRow(ctx: Context, p: PlacedLoad, row: number, axial: boolean):
     };
   }
   const c = l.loadCase!;
-  const mag = new Map([[ch(ctx, c)!, toKips(ctx, sheetCellRef(l.magnitude!.cell), false)]]);
+  const mag = new Map([[ch(ctx, c)!, toKips(ctx, inputRef(ctx, l.magnitude!.cell), false)]]);
   if (l.kind === "point") return { kind: "point", source: `${label}: point ${c}`, from: axial ? null : ref(l.from), to: null, mags: mag };
   const partial = l.from?.value != null && l.to?.value != null;
   return { kind: "line", source: `${label}: line ${c}`, from: partial ? ref(l.from) : null, to: partial ? ref(l.to) : null, mags: mag };
@@ -202,7 +211,7 @@ function receivedRow(ctx: Context, d: Delivery, axial: boolean): LoadRow {
     if (cell !== null) mags.set(i, cell);
   }
   const from = ctx.model.members[d.from]!;
-  return { kind: "reaction", source: `${from.mark} ${d.end}`, from: axial || d.at === null ? null : f(sheetCellRef(d.at.cell)), to: null, mags };
+  return { kind: "reaction", source: `${from.mark} ${d.end}`, from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)), to: null, mags };
 }
 
 /** The member's identity cells (mark, type, level). */
@@ -284,19 +293,18 @@ function channelRefs(ctx: Context, i: number, top: number, n: number, uniform: b
 const KLL_DEFAULTS = { row: 4, flexural: 2, column: 4 } as const;
 
 /** The KLL cell formula: the Members KLL cell when filled, else the Table 4.7-2 default in the header. */
-function kllFormula(m: Member, kind: "flexural" | "column"): string {
+function kllFormula(ctx: Context, m: Member, kind: "flexural" | "column"): string {
   const fallback = a1Absolute(KLL_DEFAULTS.row, KLL_DEFAULTS[kind]);
   if (m.kll === null) return fallback;
-  const cell = sheetCellRef(m.kll.cell);
-  return `IF(${cell}="",${fallback},${cell})`;
+  return `IF(${sheetCellRef(m.kll.cell)}="",${fallback},${inputRef(ctx, m.kll.cell)})`;
 }
 
 /** Length and supports cells of a flexural member; returns the member refs for its formulas. */
 function writeGeometry(ctx: Context, m: Member, row: number): MemberRefs {
-  const span = sheetCellRef(m.span!.cell);
+  const span = inputRef(ctx, m.span!.cell);
   // A blank overhang cell is no overhang (a filled one, even 0, is referenced and stays live).
-  const so = m.startOverhang && m.startOverhang.value !== null ? sheetCellRef(m.startOverhang.cell) : null;
-  const eo = m.endOverhang && m.endOverhang.value !== null ? sheetCellRef(m.endOverhang.cell) : null;
+  const so = m.startOverhang && m.startOverhang.value !== null ? inputRef(ctx, m.startOverhang.cell) : null;
+  const eo = m.endOverhang && m.endOverhang.value !== null ? inputRef(ctx, m.endOverhang.cell) : null;
   if (so === null && eo === null) {
     ctx.grid.set(row, COL.length, f(span));
     return { span: colAbs(row, COL.length), supports: null };
@@ -333,8 +341,10 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   }
   const at = ch(ctx, "AT");
   if (at !== undefined) {
-    grid.set(row, layout.areaT, live.includes(at) ? f(`${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)}`) : 0);
-    grid.set(row, layout.kll, f(kllFormula(m, "flexural")));
+    // A_T is an area, never negative: a member that only takes the uplift end of an overhanging
+    // member it carries gets 0 (no reduction, the conservative reading), in both versions alike.
+    grid.set(row, layout.areaT, live.includes(at) ? f(`MAX(0,${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)})`) : 0);
+    grid.set(row, layout.kll, f(kllFormula(ctx, m, "flexural")));
     grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
   }
   return { member: m.index, row, rows: n, live };
@@ -350,7 +360,7 @@ function selfWeightRow(ctx: Context, m: Member, row: number): LoadRow | null {
   const cases = Object.keys(m.extra) as LoadCase[];
   if (cases.length === 0 || m.span === null || m.span.value === null || m.span.value <= 0) return null;
   const mags = new Map<number, string>();
-  for (const c of cases) mags.set(ch(ctx, c)!, toKips(ctx, `${sheetCellRef(m.extra[c]!)}*${colAbs(row, COL.length)}`, false));
+  for (const c of cases) mags.set(ch(ctx, c)!, toKips(ctx, `${inputRef(ctx, m.extra[c]!)}*${colAbs(row, COL.length)}`, false));
   return { kind: "point", source: `self weight: ${cases.map((c) => `w${c}`).join(", ")} × height`, from: null, to: null, mags };
 }
 
@@ -358,7 +368,7 @@ function selfWeightRow(ctx: Context, m: Member, row: number): LoadRow | null {
 function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
   const { grid, layout, writer } = ctx;
   writeIdentity(ctx, m, row);
-  if (m.span !== null && m.span.value !== null) grid.set(row, COL.length, f(sheetCellRef(m.span.cell)));
+  if (m.span !== null && m.span.value !== null) grid.set(row, COL.length, f(inputRef(ctx, m.span.cell)));
   const into = ctx.into.get(m.index) ?? [];
   const above = into.filter((d) => ctx.model.members[d.from]!.type === "column");
   const rows: LoadRow[] = into.filter((d) => !above.includes(d)).map((d) => receivedRow(ctx, d, true));
@@ -388,9 +398,9 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
     const liveIndex = ch(ctx, "L");
     const here = liveIndex !== undefined && live.includes(liveIndex) ? `IF(${a1(row, layout.arriving[liveIndex]!)}>0,1,0)` : "0";
     const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
-    grid.set(row, layout.areaT, f(totalOf("AT")));
+    grid.set(row, layout.areaT, f(`MAX(0,${totalOf("AT")})`));
     grid.set(row, layout.floors, f(here + floorsAbove));
-    grid.set(row, layout.kll, f(kllFormula(m, "column")));
+    grid.set(row, layout.kll, f(kllFormula(ctx, m, "column")));
     grid.set(row, layout.kllAt, f(`${a1(row, layout.kll)}*${a1(row, layout.areaT)}`));
     grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)));
     const llr = a1(row, layout.llr);

@@ -64,6 +64,14 @@ function numberAt(read: CellReader, row: number, col: number | undefined): numbe
   return typeof v === "number" ? v : Number.NaN;
 }
 
+/**
+ * An empty object keyed by marks: no prototype, so no mark collides with an object's inherited
+ * names ("__proto__", "constructor", "toString", "hasOwnProperty").
+ */
+export function byMark<T>(): Record<string, T> {
+  return Object.create(null) as Record<string, T>;
+}
+
 /** The gravity combinations (no wind or seismic term) of ASCE/SEI 7-22 Sec. 2.3.1, LRFD, by label. */
 export function gravityCombos(effects: Readonly<Partial<Record<LoadCase, number>>>): Record<string, number> {
   const values = combinationValues({ D: effects.D ?? 0, L: effects.L ?? 0, Lr: effects.Lr ?? 0, S: effects.S ?? 0, R: effects.R ?? 0, W: 0, E: 0 }, { method: "LRFD", halfLive: false });
@@ -81,9 +89,11 @@ export function gravityCombos(effects: Readonly<Partial<Record<LoadCase, number>
  */
 export function readResults(plan: SheetPlan, model: TakedownModel, read: CellReader, problems: readonly Problem[]): TakedownResults {
   const { layout } = plan;
-  const members: Record<string, MemberResult> = {};
-  const columns: Record<string, ColumnResult> = {};
-  const foundations: Record<string, Record<string, number>> = {};
+  // Keyed by the user's marks: objects without a prototype, so a mark such as "__proto__",
+  // "constructor" or "toString" is an ordinary key (kept in the JSON, never found where absent).
+  const members = byMark<MemberResult>();
+  const columns = byMark<ColumnResult>();
+  const foundations = byMark<Record<string, number>>();
   const caseIndex = layout.cases.map((c) => ({ key: c.key, i: layout.channels.indexOf(c) }));
   const hasAt = layout.channels.some((c) => c.key === "AT");
   for (const place of plan.places) {

@@ -127,6 +127,30 @@ export function problemAt(data: TableData, rowIndex: number, colIndex: number, c
   return { code, message, sheet: data.sheet, cell: a1(data.top + rowIndex, data.left + colIndex), ...(mark !== undefined ? { mark } : {}) };
 }
 
+/**
+ * Columns that hold values under a blank header cell. A header merged across two columns reads as
+ * its text in the first and a blank in the second, so the second column's values would be lost
+ * without a word: each such column is a problem naming its header cell (and the merged neighbour).
+ */
+function headerless(title: string, data: TableData, headers: readonly HeaderParts[], rows: readonly number[]): Problem[] {
+  const width = Math.max(0, ...rows.map((i) => data.values[i]!.length));
+  const out: Problem[] = [];
+  for (let col = 0; col < width; col++) {
+    if ((headers[col]?.name ?? "") !== "") continue;
+    const filled = rows.find((i) => !isBlankCell(data.values[i]![col]));
+    if (filled === undefined) continue;
+    const left = col > 0 && (headers[col - 1]?.name ?? "") !== "" ? ` (a header merged with ${a1(data.top, data.left + col - 1)} "${String(data.values[0]![col - 1])}" reads as blank here)` : "";
+    out.push(
+      problemAt(data, 0, col, "badValue", `The ${title} table's column ${a1(data.top, data.left + col).replace(/\d+$/, "")} has values (${a1(data.top + filled, data.left + col)}) but a blank header${left}; give every column its own header cell, or the column is not read.`),
+    );
+  }
+  return out;
+}
+
+function isBlankCell(c: CellValue | undefined): boolean {
+  return c === null || c === undefined || (typeof c === "string" && c.trim() === "");
+}
+
 /** Result of matching a table's headers. */
 export interface MatchResult<K extends string> {
   readonly table: MatchedTable<K>;
@@ -191,5 +215,6 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
   }
   const rows: number[] = [];
   for (let i = 1; i < data.values.length; i++) if (!isBlankRow(data.values[i]!)) rows.push(i);
+  problems.push(...headerless(tableSpec.title, data, headers, rows));
   return { table: { title: tableSpec.title, data, columns, rows }, problems };
 }

@@ -41,7 +41,13 @@ export type ProblemCode =
   | "unknownZone"
   | "unknownType"
   | "missingPosition"
-  | "foreignSheet";
+  | "foreignSheet"
+  /** The Members table has no member rows. */
+  | "emptyTable"
+  /** A member carries more load rows than the worksheet functions accept. */
+  | "tooManyLoads"
+  /** A computed result on the generated sheet is an error value, or a number that is not finite. */
+  | "errorResult";
 
 /** One thing wrong with the input, with the sheet and A1 cell to select. */
 export interface Problem {

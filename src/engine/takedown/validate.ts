@@ -77,6 +77,26 @@ function checkSupport(m: Member, which: DeliveryEnd, s: SupportInput, byMark: Re
   return { from: m.index, end: which, to: target.index, at: s.at, supportCell: s.cell };
 }
 
+/**
+ * Both ends of a member on one point: the same column, or the same beam or girder at the same
+ * position. (Both ends on one wall or foundation is a lintel or a grade beam, and holds.)
+ */
+function samePointProblem(m: Member, start: Delivery, end: Delivery, model: TakedownModel): Problem | null {
+  if (start.to !== end.to) return null;
+  const target = model.members[start.to]!;
+  if (isTerminal(target.type)) return null;
+  if (isFlexural(target.type) && start.at?.value !== end.at?.value) return null;
+  const where = isFlexural(target.type) ? ` at ${formatNumber(start.at!.value!)}` : "";
+  const cell = (isFlexural(target.type) ? end.at?.cell : null) ?? end.supportCell;
+  return problemAtCell(
+    cell,
+    m.markCell,
+    "badValue",
+    `${m.mark}: Start support and End support are both ${target.mark}${where}: a member's two ends cannot bear on the same point (left out of the takedown's load path).`,
+    m.mark,
+  );
+}
+
 /** Check a Loads row against its member: the member exists, the kind suits it, the positions lie on it. */
 function placeLoad(load: ExtraLoad, byMark: ReadonlyMap<string, Member>, problems: Problem[]): PlacedLoad | null {
   const label = `Loads row ${load.sheetRow} (${load.mark})`;
@@ -112,10 +132,14 @@ export function checkPath(model: TakedownModel): CheckedPath {
   for (const m of model.members) {
     if (!m.valid || isTerminal(m.type)) continue;
     const ends: [DeliveryEnd, SupportInput][] = isFlexural(m.type) ? [["start", m.start], ["end", m.end]] : [["base", m.start]];
+    const held: Delivery[] = [];
     for (const [which, s] of ends) {
       const d = checkSupport(m, which, s, byMark, problems);
-      if (d) deliveries.push(d);
+      if (d) held.push(d);
     }
+    const samePoint = held.length === 2 ? samePointProblem(m, held[0]!, held[1]!, model) : null;
+    if (samePoint) problems.push(samePoint);
+    else deliveries.push(...held);
   }
   const placedLoads: PlacedLoad[] = [];
   for (const load of model.loads) {
