@@ -6,6 +6,7 @@
  * round trips whether the building has 50 members or 5,000 (plus one per ~4 MB of formulas).
  */
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellSelection, type PictureInput, type RangeData, type TableInfo, type WorkbookPort } from "./port";
+import { isDateFormat } from "./number-format";
 import { DEFAULT_CHUNK_BYTES, fromExcelValue, parseRangeAddress, planChunks, splitSheetRef, type QueuedBlock } from "./office-chunks";
 
 /** The cell that holds the generated-sheet marker on a sheet the add-in made. */
@@ -110,10 +111,12 @@ export class OfficeWorkbookPort implements WorkbookPort {
         else if (!sheet.isNullObject) range = sheet.getUsedRange(true);
         else throw new Error(`No table or sheet named "${ref}" in this workbook.`);
       }
-      range.load("address,values");
+      range.load("address,values,numberFormat");
       await context.sync();
       const { sheet, top, left } = parseRangeAddress(range.address);
-      return { sheet, top, left, values: range.values.map((row) => row.map(fromExcelValue)) };
+      const formats = Array.isArray(range.numberFormat) ? (range.numberFormat as unknown[][]) : [];
+      const dates = range.values.map((row, i) => row.map((v, j) => typeof v === "number" && isDateFormat(formats[i]?.[j] as string | undefined)));
+      return { sheet, top, left, values: range.values.map((row) => row.map(fromExcelValue)), ...(dates.some((row) => row.includes(true)) ? { dates } : {}) };
     });
   }
 

@@ -23,6 +23,8 @@ export interface RangeData {
   readonly left: number;
   /** Values, row-major; formulas are read as their computed values. */
   readonly values: readonly (readonly CellValue[])[];
+  /** Where the host tells: true for each cell holding a date (a number shown as a date), row-major. */
+  readonly dates?: readonly (readonly boolean[])[];
 }
 
 /** A table the user keeps: an Excel table (ListObject) or a plain range with a header row. */

@@ -76,6 +76,8 @@ export class FakeExcel {
   readonly tables: FakeTable[] = [];
   readonly names = new Map<string, string>();
   readonly settings = new Map<string, unknown>();
+  /** Number formats by sheet and "row,col" (0-based); a cell not listed is "General". */
+  readonly formats = new Map<string, Map<string, string>>();
   readonly writes: WriteRecord[] = [];
   readonly cleared: string[] = [];
   readonly addedSheets: string[] = [];
@@ -327,6 +329,12 @@ export class FakeExcel {
     );
   }
 
+  private formatsOf(r: Rect): string[][] {
+    const formats = this.formats.get(r.sheet) ?? new Map<string, string>();
+    if (r.rows * r.cols > 2_000_000) return [];
+    return Array.from({ length: r.rows }, (_, i) => Array.from({ length: r.cols }, (_, j) => formats.get(`${r.top + i},${r.left + j}`) ?? "General"));
+  }
+
   /** A range mock; assignments to `formulas`/`values` are queued as writes, `clear()` as a clear. */
   private rangeMock(r: Rect): OfficeMockObject {
     const fake = this;
@@ -337,6 +345,7 @@ export class FakeExcel {
       left: r.left * FAKE_COL_PT,
       top: r.top * FAKE_ROW_PT,
       values: this.valuesOf(r),
+      numberFormat: this.formatsOf(r),
       select: () => fake.queue.push(() => (fake.selection = { sheet: r.sheet, address: address.split("!")[1]! })),
       clear: () =>
         fake.queue.push(() => {

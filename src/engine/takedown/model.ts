@@ -176,11 +176,21 @@ class RowReader<K extends string> {
     let found = false;
     for (const { key, what } of keys) {
       const v = this.raw(key);
-      if (!isErrorValue(v)) continue;
-      found = true;
-      this.report(key, "badValue", `${mark ? `${mark}: ` : ""}${what} is the error value ${String(v).trim()}; give a ${what.toLowerCase()}.`, mark);
+      if (isErrorValue(v)) {
+        found = true;
+        this.report(key, "badValue", `${mark ? `${mark}: ` : ""}${what} is the error value ${String(v).trim()}; give a ${what.toLowerCase()}.`, mark);
+      } else if (this.isDate(key)) {
+        found = true;
+        this.report(key, "badValue", `${mark ? `${mark}: ` : ""}${what} is a date (the spreadsheet turned the text typed there into one); type the ${what.toLowerCase()} as text, e.g. with a leading apostrophe.`, mark);
+      }
     }
     return found;
+  }
+
+  /** Whether the cell holds a date (known only where the reader says so). */
+  isDate(key: K): boolean {
+    const col = this.table.columns[key];
+    return col !== undefined && this.table.data.dates?.[this.rowIndex]?.[col] === true;
   }
 
   report(key: K, code: Problem["code"], message: string, mark?: string): void {

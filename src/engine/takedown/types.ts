@@ -14,6 +14,11 @@ export interface TableData {
   readonly top: number;
   readonly left: number;
   readonly values: readonly (readonly CellValue[])[];
+  /**
+   * Where known, true for each cell that holds a date (a number the sheet shows as a date), row by
+   * row like `values`: a mark or level typed as "3-1" that the spreadsheet turned into a date.
+   */
+  readonly dates?: readonly (readonly boolean[])[];
 }
 
 /** Unit system of a takedown: US (ft, psf, plf, lb in; kip, kip-ft out) or SI (m, kPa, kN/m, kN, kN·m). */
