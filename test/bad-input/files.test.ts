@@ -12,7 +12,7 @@ import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
 import { writeAtomically, writeTextAtomically } from "../../src/workbook/files";
 import { fromExcelJs, readXlsx, writeXlsx } from "../../src/workbook/xlsx";
-import { child, cli, digest, listing, SAMPLE_US } from "./helpers";
+import { child, cli, digest, listing, SAMPLE_US, zipOf } from "./helpers";
 
 const dir = mkdtempSync(join(tmpdir(), "loadpath-bad-files-"));
 
@@ -106,10 +106,12 @@ describe("a failed run leaves the earlier output as it was", () => {
     const s = scene("unreadable");
     const text = join(s.folder, "notes.xlsx");
     writeFileSync(text, "not a workbook\n");
-    // A zip holding no workbook: built with ExcelJS's own zip writer (a workbook with its parts removed is not needed; an empty model has no sheet).
-    const zip = join(s.folder, "empty.xlsx");
-    await new ExcelJS.Workbook().xlsx.writeFile(zip);
-    for (const input of [text, zip]) {
+    // A zip that is not a workbook (a renamed archive of notes), and a workbook package without a worksheet.
+    const zip = join(s.folder, "archive.xlsx");
+    writeFileSync(zip, zipOf({ "notes.txt": "site visit 12 May\n", "photos/readme.md": "none\n" }));
+    const empty = join(s.folder, "empty.xlsx");
+    await new ExcelJS.Workbook().xlsx.writeFile(empty);
+    for (const input of [text, zip, empty]) {
       const before = digest(input);
       for (const args of [["recalc", input], ["recalc", input, "-o", join(s.folder, "out.xlsx")], ["takedown", input, "-o", join(s.folder, "out.xlsx")], ["export", input], ["report", input, "-o", join(s.folder, "out.html")]]) {
         const r = await cli(...args);
@@ -119,7 +121,7 @@ describe("a failed run leaves the earlier output as it was", () => {
       expect(digest(input)).toBe(before);
     }
     unchanged(s, digest(s.input));
-    expect(listing(s.folder)).toEqual(["empty.xlsx", "in.xlsx", "notes.xlsx", "out.html", "out.json", "out.xlsx"]);
+    expect(listing(s.folder)).toEqual(["archive.xlsx", "empty.xlsx", "in.xlsx", "notes.xlsx", "out.html", "out.json", "out.xlsx"]);
   });
 
   it("writeXlsx: a workbook that fails half-way through writing leaves the earlier file whole and no temporary file", async () => {
