@@ -1,34 +1,14 @@
 /**
  * The `loadpath` command: a verb dispatcher. Each verb is a module in ./commands that
- * default-exports a {@link Command}; adding a verb is one line in {@link VERBS}.
+ * default-exports a {@link Command}; adding a verb is one line in {@link VERBS}. What the verbs
+ * share (exit statuses, output streams, option checks) lives in ./shared, which the verbs import.
  *
- * Exit status: 0 success, 1 the work ran but found errors (e.g. a LOADPATH call returned an
- * error), 2 usage or file errors.
+ * Exit status: 0 success, 1 the work ran but found problems (what could be built is written),
+ * 2 usage or file errors. The interface is documented in docs/interface.md.
  */
+import { EXIT, printableIO, processIO, type CliIO, type Command } from "./shared";
 
-/** Where a command writes: stdout for results, stderr for problems and diagnostics. */
-export interface CliIO {
-  out(line: string): void;
-  err(line: string): void;
-}
-
-/** One verb of the command. */
-export interface Command {
-  /** One line for `loadpath --help`. */
-  readonly summary: string;
-  /** Full usage text for `loadpath <verb> --help`. */
-  readonly usage: string;
-  /**
-   * Run the verb.
-   * @param args - the arguments after the verb.
-   * @param io - output streams.
-   * @returns the exit status.
-   */
-  run(args: readonly string[], io: CliIO): Promise<number>;
-}
-
-/** Exit statuses shared by every verb. */
-export const EXIT = { ok: 0, failed: 1, usage: 2 } as const;
+export { EXIT, processIO, type CliIO, type Command } from "./shared";
 
 /** Verb -> its module (webpackMode eager keeps every verb inside dist/cli.js). */
 export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>> = {
@@ -39,12 +19,6 @@ export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>
   report: () => import(/* webpackMode: "eager" */ "./commands/report"),
 };
 
-/** The process's own streams. */
-export const processIO: CliIO = {
-  out: (line) => void process.stdout.write(line + "\n"),
-  err: (line) => void process.stderr.write(line + "\n"),
-};
-
 async function help(io: CliIO): Promise<void> {
   io.out("Usage: loadpath <verb> [arguments]   (loadpath <verb> --help for a verb's arguments)");
   io.out("");
@@ -53,16 +27,25 @@ async function help(io: CliIO): Promise<void> {
   const width = Math.max(...names.map((n) => n.length));
   for (const name of names) io.out(`  ${name.padEnd(width)}  ${(await VERBS[name]!()).default.summary}`);
   io.out("");
+  io.out("Table options (takedown, report, export): --zones --members --loads name a table;");
+  io.out("--map renames a column; --units US|SI (default: from the header units, else US);");
+  io.out("--sheet names the generated sheet; --replace replaces a same-named sheet of yours.");
+  io.out("Without -o a verb checks only and writes nothing. Exit status: 0 done, 1 problems found");
+  io.out("(what could be built is still written), 2 usage or file errors (nothing written).");
+  io.out("Everything is described in docs/interface.md.");
+  io.out("");
   io.out("Results are for review by a qualified engineer; local codes govern.");
 }
 
 /**
- * Run the command line.
+ * Run the command line. Every line printed goes through the control-character filter
+ * ({@link printableIO}), whatever the streams.
  * @param argv - arguments after `loadpath` (process.argv.slice(2)).
- * @param io - output streams (default: the process's stdout and stderr).
+ * @param streams - output streams (default: the process's stdout and stderr).
  * @returns the exit status.
  */
-export async function main(argv: readonly string[], io: CliIO = processIO): Promise<number> {
+export async function main(argv: readonly string[], streams: CliIO = processIO()): Promise<number> {
+  const io = printableIO(streams);
   const [verb, ...rest] = argv;
   if (verb === undefined || verb === "--help" || verb === "-h" || verb === "help") {
     await help(io);

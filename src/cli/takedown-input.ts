@@ -1,18 +1,22 @@
 /**
  * What the verbs that build a takedown from an .xlsx file share (`loadpath takedown`,
- * `loadpath report`): the table options (`--units`, `--zones`, `--members`, `--loads`, `--map`),
- * their checks, the default tables' lookup (also used by `loadpath export`) and the headless
- * build of a file in memory.
+ * `loadpath report`, `loadpath export`): the table options (`--zones`, `--members`, `--loads`,
+ * `--map`, `--units`, `--sheet`, `--replace`, the same meaning in every verb), their checks, the
+ * unit system read from the headers, the default tables' lookup and the headless build of a file
+ * in memory.
  */
 import type { ParseArgsConfig } from "node:util";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { buildTakedown } from "../workbook/takedown-build";
 import type { ColumnMapping, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
-import { engineSheets, readXlsx, type XlsxWorkbook } from "../workbook/xlsx";
+import { engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
+import { readInputWorkbook } from "./shared";
+import { unitFits } from "../engine/takedown/units";
 
 /** What a takedown run needs besides the files. */
 export interface TakedownRun {
-  readonly units: UnitSystem;
+  /** Unit system; left out: the one the headers' units show, else US. */
+  readonly units?: UnitSystem;
   readonly zones?: string;
   readonly members?: string;
   readonly loads?: string;
@@ -29,6 +33,8 @@ export interface TakedownFileResult {
   readonly workbook: XlsxWorkbook;
   readonly port: MemoryWorkbookPort;
   readonly options: TakedownOptions;
+  /** The unit system the table headers show, when they show one. */
+  readonly headerUnits?: UnitSystem;
 }
 
 /**
@@ -47,19 +53,34 @@ export function parseMappings(entries: readonly string[]): { mapping: ColumnMapp
 }
 
 /**
- * The `parseArgs` options of the table choices. The Members table's option is `--members` in
- * `loadpath takedown`; a verb that uses `--members` for something else names it differently.
- * @param membersOption - name of the Members table's option (without the dashes)
+ * The `parseArgs` options every verb that reads the member tables takes, with the same meaning
+ * everywhere: `--zones`, `--members`, `--loads` name a table (Excel table, sheet or
+ * `Sheet!A1:H20`), `--map` renames a column, `--units` is the unit system, `--sheet` names the
+ * generated sheet and `--replace` lets it replace a same-named sheet the add-in did not make.
  */
-export function tableOptions(membersOption = "members"): NonNullable<ParseArgsConfig["options"]> {
+export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
   return {
     units: { type: "string" },
     zones: { type: "string" },
-    [membersOption]: { type: "string" },
+    members: { type: "string" },
     loads: { type: "string" },
     map: { type: "string", multiple: true },
+    sheet: { type: "string" },
+    replace: { type: "boolean" },
   };
 }
+
+/** The usage lines of {@link tableOptions}, shared by the verbs' help texts. */
+export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads <name>
+                 Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
+                 default: the table or sheet named Zones, Members and (if present) Loads
+  --map <table>.<Column>=<your header>
+                 a column whose header differs, e.g. --map members.Trib="Trib width"
+                 (repeatable; table zones, members or loads)
+  --units US|SI  US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default:
+                 the system the table headers' units show ("Span (m)"), else US
+  --sheet <name> name of the generated sheet (default "Takedown")
+  --replace      replace a same-named sheet the add-in did not create`;
 
 /** Option values as `parseArgs` gives them. */
 export type OptionValues = Readonly<Record<string, string | boolean | (string | boolean)[] | undefined>>;
@@ -69,31 +90,87 @@ function stringOf(v: OptionValues[string]): string | undefined {
 }
 
 /**
- * Check the table options and turn them into a run: `--units` is US or SI (default US), every
- * `--map` entry is `<table>.<Column>=<header>`.
+ * Why a name cannot be a worksheet's name in Excel (undefined when it can): 1 to 31 characters,
+ * none of : \ / ? * [ ], not beginning or ending with an apostrophe, not "History" (reserved).
+ * @param name - the name asked for
+ */
+export function sheetNameProblem(name: string): string | undefined {
+  if (name.length === 0) return "--sheet: a sheet name cannot be empty.";
+  if (name.length > 31) return `--sheet "${name}": ${name.length} characters; Excel allows at most 31.`;
+  const bad = /[:\\/?*[\]]/.exec(name);
+  if (bad) return `--sheet "${name}": Excel does not allow "${bad[0]}" in a sheet name (nor any of : \\ / ? * [ ]).`;
+  if (/[\u0000-\u001F\u007F]/.test(name)) return `--sheet: the name holds a control character.`;
+  if (name.startsWith("'") || name.endsWith("'")) return `--sheet "${name}": a sheet name cannot begin or end with an apostrophe.`;
+  if (name.trim().toLowerCase() === "history") return `--sheet "${name}": "History" is reserved by Excel.`;
+  return undefined;
+}
+
+/**
+ * Check the table options and turn them into a run: `--units` is US or SI (left out: read from
+ * the headers when the file is read), every `--map` entry is `<table>.<Column>=<header>`,
+ * `--sheet` a name Excel accepts.
  * @param values - the parsed option values
- * @param membersOption - name of the Members table's option (see {@link tableOptions})
  * @returns the run, or a message for the user
  */
-export function runOfOptions(values: OptionValues, membersOption = "members"): { run: TakedownRun } | { error: string } {
+export function runOfOptions(values: OptionValues): { run: TakedownRun } | { error: string } {
   const given = stringOf(values.units);
-  const unitsText = (given ?? "US").toUpperCase();
-  if (unitsText !== "US" && unitsText !== "SI") return { error: `--units is US or SI (got "${given}").` };
+  const unitsText = given?.trim().toUpperCase();
+  if (unitsText !== undefined && unitsText !== "US" && unitsText !== "SI") return { error: `--units is US or SI (got "${given}").` };
   const mapValues = Array.isArray(values.map) ? values.map.filter((v): v is string => typeof v === "string") : [];
   const maps = parseMappings(mapValues);
   if ("error" in maps) return { error: maps.error };
+  const sheet = stringOf(values.sheet);
+  const sheetProblem = sheet === undefined ? undefined : sheetNameProblem(sheet);
+  if (sheetProblem !== undefined) return { error: sheetProblem };
   const zones = stringOf(values.zones);
-  const members = stringOf(values[membersOption]);
+  const members = stringOf(values.members);
   const loads = stringOf(values.loads);
   return {
     run: {
-      units: unitsText,
+      ...(unitsText !== undefined ? { units: unitsText } : {}),
       mapping: maps.mapping,
       ...(zones !== undefined ? { zones } : {}),
       ...(members !== undefined ? { members } : {}),
       ...(loads !== undefined ? { loads } : {}),
+      ...(sheet !== undefined ? { sheet } : {}),
+      replace: values.replace === true,
     },
   };
+}
+
+/** Whether the run names a table or a column mapping (rather than leaving everything to the defaults). */
+export function namesTables(run: TakedownRun): boolean {
+  const mapped = run.mapping !== undefined && Object.values(run.mapping).some((m) => m !== undefined && Object.keys(m).length > 0);
+  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || mapped;
+}
+
+/** Header cells of a table or sheet (the table's header row, else the first row of the sheet or range). */
+export function headersOf(wb: XlsxWorkbook, name: string): string[] {
+  const table = wb.tables.find((t) => t.name.toLowerCase() === name.toLowerCase());
+  if (table) return [...table.headers];
+  const sheetName = /^'?(.+?)'?!/.exec(name)?.[1]?.replace(/''/g, "'") ?? name;
+  const sheet = wb.sheets.find((s) => s.name.toLowerCase() === sheetName.toLowerCase());
+  return (sheet?.rows[0] ?? []).map((v) => (typeof v === "string" ? v.replace(/^'/, "") : String(v ?? "")));
+}
+
+const QUANTITIES = ["length", "areaLoad", "lineLoad", "force"] as const;
+
+/**
+ * The unit system the units in the tables' headers show (`Span (m)`, `D (psf)`): SI or US when
+ * every recognised unit belongs to one system; undefined when they show none or both.
+ * @param wb - the workbook read
+ * @param tables - names of the tables (or sheets) to look at
+ */
+export function unitsShownByHeaders(wb: XlsxWorkbook, tables: readonly string[]): UnitSystem | undefined {
+  const shown = new Set<UnitSystem>();
+  for (const t of tables) {
+    for (const h of headersOf(wb, t)) {
+      const unit = /\(([^()]*)\)\s*$/.exec(h)?.[1];
+      if (unit === undefined) continue;
+      for (const system of ["US", "SI"] as const) if (QUANTITIES.some((q) => unitFits(q, system, unit))) shown.add(system);
+    }
+  }
+  return shown.size === 1 ? [...shown][0] : undefined;
 }
 
 /**
@@ -116,28 +193,41 @@ function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string
  * Build the takedown of an .xlsx file in memory (nothing written).
  * @param input - path of the workbook
  * @param run - unit system, table names, mapping
- * @param membersOption - name of the Members table's option, for the message when it is missing
  * @throws Error when the file cannot be read, or a table name is missing and no default exists
  */
-export async function takedownOfFile(input: string, run: TakedownRun, membersOption = "members"): Promise<TakedownFileResult> {
-  const workbook = await readXlsx(input);
+export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
+  const workbook = await readInputWorkbook(input);
   const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })) });
   const zones = tableName(workbook, run.zones, "Zones");
   const members = tableName(workbook, run.members, "Members");
   if (zones === undefined || members === undefined) {
-    throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : membersOption}.`);
+    throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
   }
   const loads = tableName(workbook, run.loads, "Loads");
+  const headerUnits = unitsShownByHeaders(workbook, [zones, members, ...(loads !== undefined ? [loads] : [])]);
   const options: TakedownOptions = {
     zones,
     members,
     ...(loads !== undefined ? { loads } : {}),
-    units: run.units,
+    units: run.units ?? headerUnits ?? "US",
     ...(run.mapping ? { mapping: run.mapping } : {}),
     ...(run.sheet ? { sheetName: run.sheet } : {}),
     replaceForeign: run.replace === true,
     ...(run.native ? { native: true } : {}),
   };
   const result = await buildTakedown(port, options);
-  return { result, workbook, port, options };
+  return { result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}) };
+}
+
+/**
+ * The option that would fit when the unit system used is not the one the headers show (a unit
+ * mismatch is then among the problems), e.g. `the table headers show SI units (m, kPa, kN/m, kN);
+ * run with --units SI.`; undefined when they agree or show none.
+ * @param file - the build of a file
+ */
+export function unitsHint(file: Pick<TakedownFileResult, "options" | "headerUnits">): string | undefined {
+  const shown = file.headerUnits;
+  if (shown === undefined || shown === file.options.units) return undefined;
+  const names = shown === "SI" ? "m, kPa, kN/m, kN" : "ft, psf, plf, lb";
+  return `the table headers show ${shown} units (${names}); run with --units ${shown}.`;
 }

@@ -1,6 +1,6 @@
 /**
  * The `loads` and `supports` arguments of the beam functions, read into the engine's
- * {@link BeamModel} (design.md section 3), and the deflection unit keys.
+ * {@link BeamModel} (docs/interface.md section 1), and the deflection unit keys.
  *
  * Row numbers in messages are 1-based within the range the user passed. A row whose cells are
  * all blank is skipped (users reserve room); so is a loads row of zeros, because some hosts pass

@@ -1,5 +1,5 @@
 /**
- * Beam worksheet functions (namespace LOADPATH, design.md section 3): exact reactions, shears,
+ * Beam worksheet functions (namespace LOADPATH, docs/interface.md section 1): exact reactions, shears,
  * moments and deflections of one straight member with constant EI.
  *
  * The JSDoc of each `@customfunction` is the help Excel shows; functions.json is generated from

@@ -1,7 +1,7 @@
 /**
  * Sizes of spilled results, computed from the sizes of the argument ranges only (and from
  * numbers typed literally in the formula), never from cell values: the headless engine fixes a
- * spill's size when it parses the formula, before anything is evaluated (design.md section 3).
+ * spill's size when it parses the formula, before anything is evaluated (docs/interface.md section 1).
  * A function fills the size given here and pads with "" (blank-looking cells).
  *
  * One rule per spilling function id. A new spilling function adds one entry to {@link SPILL_RULES}.

@@ -25,7 +25,7 @@ export interface TakedownRecord {
   readonly plan: SheetPlan;
   /** Levels from the top down. */
   readonly levels: readonly string[];
-  /** The build's results (design.md section 5). */
+  /** The build's results (docs/interface.md section 4). */
   readonly json: TakedownJson;
   /** Every member's loads, supports and reactions, in takedown order. */
   readonly members: ReadonlyMap<string, MemberLoads>;

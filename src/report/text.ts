@@ -6,7 +6,7 @@ import { LLR_THRESHOLD_AREA } from "../engine/loads/live-reduction";
 import type { UnitSystem } from "../engine/takedown/types";
 import { RESULT_UNITS } from "../engine/takedown/units";
 
-/** The caution at the top and the bottom of every report (design.md section 6). */
+/** The caution at the top and the bottom of every report (DEVELOPERS.md, Rules every change keeps). */
 export const REPORT_CAUTION =
   "Caution: this report is a calculation aid. Every result needs review by a qualified (licensed) engineer, who remains responsible for the design. Code provisions apply only where the local jurisdiction adopts them; local codes and amendments govern.";
 

@@ -9,7 +9,7 @@ import { UNIT_NAMES } from "../engine/takedown/units";
 import type { TableInfo } from "../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../workbook/takedown-api";
 
-/** The three input tables of design.md section 4. */
+/** The three input tables of docs/interface.md section 2. */
 export type TableRole = "zones" | "members" | "loads";
 
 /** Roles in the order the pane lists them. */

@@ -15,7 +15,7 @@ export const SETTING_KEYS = {
   units: "loadpath.units",
 } as const;
 
-/** Default name of the generated sheet (design.md section 5). */
+/** Default name of the generated sheet (docs/interface.md section 3). */
 export const DEFAULT_SHEET = "Takedown";
 
 /** The input tables chosen for each role ("" = none). */

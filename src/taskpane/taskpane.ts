@@ -1,7 +1,7 @@
 /*
  * Task pane entry of the Excel bundle (dist/taskpane.js). The functions bundle is loaded on the
  * same page (shared runtime). This bundle talks to the workbook only through the Office.js
- * adapter and must never include HyperFormula (design.md section 6).
+ * adapter and must never include HyperFormula (DEVELOPERS.md, Rules every change keeps).
  */
 import { OfficeWorkbookPort } from "../workbook/office";
 import { buildTakedown } from "../workbook/takedown-build";

@@ -27,7 +27,7 @@ import { enUS } from "hyperformula/i18n/languages";
 import { padToSize, spillSize, type ArgShape } from "../functions/spill";
 import { ShimError } from "./headless-shim";
 
-/** The add-in's function namespace (manifest and design.md section 3). */
+/** The add-in's function namespace (manifest and docs/interface.md section 1). */
 export const NAMESPACE = "LOADPATH";
 
 /** One parameter as functions.json describes it. */

@@ -1,7 +1,7 @@
 /**
  * A stand-in for the host's `CustomFunctions` global, enough to load the built functions bundle
  * outside Excel: `associate` records every id -> function pair, `Error` and `ErrorCode` behave
- * like the host's (design.md section 2: the headless evaluator loads the bundle the way Excel does).
+ * like the host's (DEVELOPERS.md, Layout: the headless evaluator loads the bundle the way Excel does).
  */
 
 /** The host's error codes (the same strings as the custom functions runtime). */

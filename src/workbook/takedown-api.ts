@@ -1,7 +1,7 @@
 /**
  * The contract between the takedown builder (src/engine/takedown + the orchestrator that runs it
  * over a WorkbookPort) and its callers: the task pane and the `loadpath takedown` command.
- * Shapes of the JSON follow design.md section 5 exactly.
+ * Shapes of the JSON follow docs/interface.md section 4 exactly.
  */
 import type {
   ColumnResult,

@@ -10,7 +10,7 @@ import { byMark, FATAL_CODES, planTakedown, readResults, scanJson, scanResults, 
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellValue, type RangeData, type WorkbookPort } from "./port";
 import type { BuildTakedown, BuiltTakedown, MemberRows, Problem, Progress, TakedownJson, TakedownOptions } from "./takedown-api";
 
-/** Default name of the generated sheet (design.md section 5). */
+/** Default name of the generated sheet (docs/interface.md section 3). */
 export const DEFAULT_TAKEDOWN_SHEET = "Takedown";
 
 /** Rows per block written through the port (keeps each Office request well under its size limit). */

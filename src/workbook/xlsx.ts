@@ -17,6 +17,7 @@ import { resolve } from "node:path";
 import ExcelJS from "exceljs";
 import { DetailedCellError, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
 import { cellAddress, parseCell, sheetRef } from "./a1";
+import { writeAtomically } from "./files";
 import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
 
 /** A formula cell as found in the file. Rows and columns are 0-based. */
@@ -296,11 +297,13 @@ export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummar
 /**
  * Write the workbook to a file. It writes exactly where it is told: callers (the CLI) write only
  * to a path the user named, so the input is replaced only when the user names it as the output.
+ * The file is written to a temporary file in the same folder and renamed into place when
+ * complete, so a failure leaves any earlier file at `output` as it was.
  * @param wb - the workbook.
  * @param output - destination path.
  */
 export async function writeXlsx(wb: XlsxWorkbook, output: string): Promise<void> {
-  await wb.excel.xlsx.writeFile(resolve(output));
+  await writeAtomically(output, (temporary) => wb.excel.xlsx.writeFile(temporary));
 }
 
 /** "Sheet!A1" for a problem, with the sheet quoted when it needs it. */

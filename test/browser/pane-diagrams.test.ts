@@ -5,7 +5,7 @@
  * and moment diagrams and its load path; the diagram follows the selection and the load case.
  *
  * Reference values come from outside the page: the same sample built by the `loadpath takedown`
- * command in Node (its results JSON, design.md section 5), and the rows of each member read from
+ * command in Node (its results JSON, docs/interface.md section 4), and the rows of each member read from
  * the workbook that command wrote (ExcelJS). A hand check of one beam (common practice: a simple
  * span under a uniform load w has reactions wL/2) ties both to the input tables.
  * Screenshots at 320 px go to test-output/. Needs `npm run build`.

@@ -73,9 +73,12 @@ describe("loadpath takedown", () => {
     // A joist with its balcony overhang past the second support: that support takes more than the first (statics).
     expect(result.members.J01!.reactions.D![1]).toBeGreaterThan(result.members.J01!.reactions.D![0]!);
     const out = join(dir, "house-us.xlsx");
-    const wrong = await run(SAMPLE_SI, "-o", out);
+    // Without --units the headers' units (kPa, m) choose SI; --units US against them is a mismatch that names the fitting option.
+    expect((await run(SAMPLE_SI)).status).toBe(0);
+    const wrong = await run(SAMPLE_SI, "-o", out, "--units", "US");
     expect(wrong.status).toBe(1);
     expect(wrong.err[0]).toMatch(/^Zones!B1: .*kPa.*US.*psf/);
+    expect(wrong.err.at(-1)).toBe("loadpath takedown: the table headers show SI units (m, kPa, kN/m, kN); run with --units SI.");
     expect(existsSync(out)).toBe(false);
   });
 

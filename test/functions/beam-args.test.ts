@@ -1,5 +1,5 @@
 /**
- * Reading the `loads` and `supports` ranges into the member model (design.md section 3): both
+ * Reading the `loads` and `supports` ranges into the member model (docs/interface.md section 1): both
  * loads formats, blank rows as hosts pass them (null, "" or 0), and every error naming its row.
  */
 import { describe, expect, it } from "vitest";

@@ -28,7 +28,7 @@ describe("functions.json and functions.js agree", () => {
   it("every @customfunction in the sources has metadata, and nothing else is listed", () => {
     expect(metadata.map((f) => f.id.toUpperCase()).sort()).toEqual(declaredIds().sort());
   });
-  it("the beam functions of design.md section 3 are all there, with their arguments in order", () => {
+  it("the beam functions of docs/interface.md section 1 are all there, with their arguments in order", () => {
     const byId = new Map(metadata.map((f) => [f.id, f]));
     for (const id of BEAM_IDS) expect(byId.has(id), id).toBe(true);
     const names = (id: string) => byId.get(id)!.parameters.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(", ");

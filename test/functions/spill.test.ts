@@ -1,5 +1,5 @@
 /**
- * Spill sizes follow from argument sizes only (design.md section 3): REACTIONS one row per
+ * Spill sizes follow from argument sizes only (docs/interface.md section 1): REACTIONS one row per
  * supports row, DIAGRAM an upper bound from the load and support rows and the stations typed in
  * the formula. Padding fills with "" (a null inside a returned array would show as 0).
  */

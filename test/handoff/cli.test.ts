@@ -74,9 +74,11 @@ describe("loadpath export", () => {
     expect(await addInCalls(out)).toEqual([]);
   });
 
-  it("refuses bad usage with status 2: no output, the input as output, unknown units, half the table options", async () => {
+  it("without -o checks only and says so; refuses bad usage with status 2: the input as output, unknown units, a bad sheet name", async () => {
     const input = join(SAMPLES, "steel-office-us.xlsx");
-    expect((await run("export", input)).code).toBe(2);
+    const check = await run("export", input);
+    expect(check.code).toBe(0);
+    expect(check.out).toMatch(/check only, nothing written/);
     expect((await run("export", input, "-o", input)).code).toBe(2);
     // The JSON named as the input would write over it too (a copy, so a failure cannot harm the sample).
     const copy = join(scratch.dir, "input-copy.xlsx");
@@ -85,9 +87,9 @@ describe("loadpath export", () => {
     expect((await run("export", copy, "-o", join(scratch.dir, "w.xlsx"), "--json", copy)).code).toBe(2);
     expect(readFileSync(copy).equals(before)).toBe(true);
     expect((await run("export", input, "-o", join(scratch.dir, "x.xlsx"), "--units", "metric")).code).toBe(2);
-    const half = await run("export", input, "-o", join(scratch.dir, "y.xlsx"), "--zones", "Zones");
-    expect(half.code).toBe(2);
-    expect(half.err).toMatch(/both --zones and --members/);
+    const badSheet = await run("export", input, "-o", join(scratch.dir, "y.xlsx"), "--sheet", "Loads/2");
+    expect(badSheet.code).toBe(2);
+    expect(badSheet.err).toMatch(/--sheet "Loads\/2": Excel does not allow "\/"/);
     expect((await run("export", join(scratch.dir, "missing.xlsx"), "-o", join(scratch.dir, "z.xlsx"))).code).toBe(2);
   });
 

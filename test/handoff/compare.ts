@@ -1,6 +1,6 @@
 /**
  * Comparing the results of two takedown builds (the add-in version and the hand-off version):
- * every number of the takedown JSON (design.md section 5), leaf by leaf. Test-only code.
+ * every number of the takedown JSON (docs/interface.md section 4), leaf by leaf. Test-only code.
  */
 
 /** A mismatch between two JSON trees: path and both values. */

@@ -76,7 +76,7 @@ beforeAll(async () => {
   expect((await cli("takedown", framing, "--json", jsonPath)).status).toBe(0);
   json = JSON.parse(readFileSync(jsonPath, "utf8")) as TakedownJson;
   const out = join(dir, "framing.html");
-  expect((await cli("report", framing, "-o", out, "--members", "B1,B2,G1,C1", "--date", "2025-01-15")).status).toBe(0);
+  expect((await cli("report", framing, "-o", out, "--only", "B1,B2,G1,C1", "--date", "2025-01-15")).status).toBe(0);
   html = readFileSync(out, "utf8");
   browser = await launch(PAGE.width, 1056);
   page = await browser.context.newPage();
@@ -264,7 +264,7 @@ describe.skipIf(missing !== null)("calculation report in Chromium", () => {
 
   it("renders a member of sample building (a) for review (the README's picture comes from here)", async () => {
     const out = join(dir, "office.html");
-    expect((await cli("report", join(ROOT, "sample-workbooks", "steel-office-us.xlsx"), "-o", out, "--members", "2-H1", "--date", "2025-01-15")).status).toBe(0);
+    expect((await cli("report", join(ROOT, "sample-workbooks", "steel-office-us.xlsx"), "-o", out, "--only", "2-H1", "--date", "2025-01-15")).status).toBe(0);
     await open(readFileSync(out, "utf8"));
     const top = await page.locator('[data-mark="2-H1"]').evaluate((e) => e.getBoundingClientRect().top + window.scrollY);
     await page.screenshot({ path: join(OUT, "sample-2-H1-page.png"), fullPage: true, clip: { x: 0, y: Math.max(0, top - 12), width: PAGE.width, height: 1120 } });

@@ -47,7 +47,7 @@ describe("loadpath report", () => {
   it("writes the report of the chosen members of sample (a) and leaves the input as it was", async () => {
     const before = digest(SAMPLE_US);
     const out = join(dir, "office.html");
-    const r = await cli("report", SAMPLE_US, "-o", out, "--members", "2-H1, C2B-2", "--members", "2-G2AB", "--date", "2025-01-15");
+    const r = await cli("report", SAMPLE_US, "-o", out, "--only", "2-H1, C2B-2", "--only", "2-G2AB", "--date", "2025-01-15");
     expect(r.err).toEqual([]);
     expect(r.status).toBe(0);
     expect(r.out.join("\n")).toMatch(/Calculation report of 3 member\(s\) written to/);
@@ -72,7 +72,7 @@ describe("loadpath report", () => {
     expect(sectionMarks(readFileSync(b, "utf8"))).toEqual(marks);
     // A foundation gets a section when it is named.
     const f = join(dir, "footing.html");
-    expect((await cli("report", FRAMING, "-o", f, "--members", "F1")).status).toBe(0);
+    expect((await cli("report", FRAMING, "-o", f, "--only", "F1")).status).toBe(0);
     expect(sectionMarks(readFileSync(f, "utf8"))).toEqual(["F1"]);
   });
 
@@ -94,11 +94,11 @@ describe("loadpath report", () => {
   it("refuses bad usage with status 2 and writes nothing", async () => {
     const out = join(dir, "never.html");
     const cases: [string[], RegExp][] = [
-      [[FRAMING], /name the HTML file to write with -o/],
       [[], /no input workbook given/],
-      [[FRAMING, "-o", out, "--all", "--members", "B1"], /give --members or --all, not both/],
-      [[FRAMING, "-o", out, "--members", " , "], /--members lists no mark/],
-      [[FRAMING, "-o", out, "--members", "B1,B9"], /not in the takedown: B9/],
+      [[FRAMING, "-o", out, "--all", "--only", "B1"], /give --only or --all, not both/],
+      [[FRAMING, "-o", out, "--only", " , "], /--only lists no mark/],
+      [[FRAMING, "-o", out, "--only", "B1,B9"], /not in the takedown: B9/],
+      [[FRAMING, "-o", out, "--members-table", "Members"], /Unknown option '--members-table'/],
       [[FRAMING, "-o", out, "--units", "metric"], /--units is US or SI/],
       [[FRAMING, "-o", out, "--map", "nonsense"], /--map "nonsense"/],
       [[FRAMING, "-o", FRAMING], /is the input file/],
@@ -112,15 +112,15 @@ describe("loadpath report", () => {
     expect(existsSync(out)).toBe(false);
   });
 
-  it("names the Members table with --members-table", async () => {
+  it("names the Members table with --members, as every verb does; the members detailed with --only", async () => {
     const renamed = join(dir, "renamed.xlsx");
     const sheets = framingSheets();
     await writeSheets(renamed, { Zones: sheets.Zones!, Framing: sheets.Members!, Loads: sheets.Loads! });
     const out = join(dir, "renamed.html");
     const missing = await cli("report", renamed, "-o", out);
     expect(missing.status).toBe(2);
-    expect(missing.err.join("\n")).toMatch(/no Members table or sheet; name it with --members-table/);
-    const r = await cli("report", renamed, "-o", out, "--members-table", "Framing", "--members", "G1");
+    expect(missing.err.join("\n")).toMatch(/no Members table or sheet; name it with --members/);
+    const r = await cli("report", renamed, "-o", out, "--members", "Framing", "--only", "G1");
     expect(r.status).toBe(0);
     expect(sectionMarks(readFileSync(out, "utf8"))).toEqual(["G1"]);
   });
@@ -132,7 +132,7 @@ describe("loadpath report", () => {
     members.push(["B9", "beam", "2", 24, "OFF", 4, "G7", 5, "G2", 5, null, 40]);
     await writeSheets(broken, { ...sheets, Members: members });
     const out = join(dir, "broken.html");
-    const r = await cli("report", broken, "-o", out, "--members", "G1");
+    const r = await cli("report", broken, "-o", out, "--only", "G1");
     expect(r.status).toBe(1);
     expect(r.err.join("\n")).toMatch(/Members!G14: B9: Start support "G7" is not a mark in the Members table\./);
     const html = readFileSync(out, "utf8");
@@ -143,7 +143,7 @@ describe("loadpath report", () => {
 
   it("stops with status 1 and no report when the tables cannot be read as meant", async () => {
     const out = join(dir, "none.html");
-    const r = await cli("report", join(ROOT, "sample-workbooks", "timber-house-si.xlsx"), "-o", out);
+    const r = await cli("report", join(ROOT, "sample-workbooks", "timber-house-si.xlsx"), "-o", out, "--units", "US");
     expect(r.status).toBe(1);
     expect(r.err.join("\n")).toMatch(/Zones!B1: Zones column "D \(kPa\)" is in kPa, but a US takedown reads D in psf\./);
     expect(r.out.join("\n")).toMatch(/there is no report/);

@@ -1,6 +1,6 @@
 /**
  * The pane's session over the Office.js adapter and the office-addin-mock model of Excel: table
- * detection by the default headers of design.md section 4, settings kept in the workbook, the
+ * detection by the default headers of docs/interface.md section 2, settings kept in the workbook, the
  * question before replacing a sheet the add-in did not make, selection of a problem's cell, and
  * a progress callback that hands control back to the host.
  */

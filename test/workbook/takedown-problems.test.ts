@@ -1,5 +1,5 @@
 /**
- * Every problem of design.md section 5 (and the table problems of the takedown contract) is
+ * Every problem of docs/interface.md section 4 (and the table problems of the takedown contract) is
  * found and reported with its sheet and cell, all at once, without a crash; members on a cycle
  * are reported with the cycle's path and everything else still builds.
  * Needs `npm run build` (the headless engine loads the built functions bundle).

@@ -7,7 +7,7 @@ import { join } from "node:path";
 import type ExcelJS from "exceljs";
 import { toEngineFormula } from "../../workbook/headless";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
-import { EXIT } from "../main";
+import { EXIT } from "../shared";
 import type { DemoPart } from "./demo";
 
 /** The sheet printed by this part. */

@@ -9,7 +9,7 @@ import { dirname, join } from "node:path";
 import type ExcelJS from "exceljs";
 import { denoise } from "../../taskpane/diagrams/format";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
-import { EXIT, type CliIO, type Command } from "../main";
+import { EXIT, type CliIO, type Command } from "../shared";
 import { gravityLoadsPart } from "./demo-gravity-loads";
 import { reportDemoPart } from "./report";
 import { takedownDemoPart } from "./takedown";

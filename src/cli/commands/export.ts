@@ -5,7 +5,9 @@
  * LibreOffice Calc and Gnumeric; add-in formulas elsewhere (the engineer's own sheets) become
  * their computed values, each with a cell note, listed on the notice sheet and on stdout; a
  * visible notice sheet says how the file was generated, its units, the code editions and the
- * caution. The input file is never changed.
+ * caution. The input file is never changed; the hand-off file is written whole or not at all.
+ * Problems with single members leave those members out, are listed on the notice sheet and give
+ * exit status 1 with the file still written.
  */
 import { resolve } from "node:path";
 import type ExcelJS from "exceljs";
@@ -17,32 +19,39 @@ import { exportSheets, MemoryWorkbookPort } from "../../workbook/memory-port";
 import { GENERATED_MARKER } from "../../workbook/port";
 import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
 import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
-import { cacheResults, engineSheets, readXlsx, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
-import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, usageOnThrow, writesOverInput } from "../shared";
-import { tableOrSheet } from "../takedown-input";
+import { writeTextAtomically } from "../../workbook/files";
+import { cacheResults, engineSheets, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
+import { EXIT, outputsRefused, parseVerbArgs, readInputWorkbook, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
+import { namesTables, runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, tableOrSheet, unitsHint, unitsShownByHeaders, type TakedownRun } from "../takedown-input";
 import { describeTakedownProblem } from "./takedown";
 
-const USAGE = `Usage: loadpath export <in.xlsx> -o <handoff.xlsx> [options]
+const USAGE = `Usage: loadpath export <in.xlsx> [-o <handoff.xlsx>] [--json <file>]
+                     [--zones <name>] [--members <name>] [--loads <name>]
+                     [--map <table>.<Column>=<your header> ...] [--units US|SI]
+                     [--sheet <name>] [--replace]
 
 Writes a hand-off copy of the workbook that recalculates without the Loadpath add-in (Excel,
 LibreOffice Calc, Gnumeric): every takedown sheet is rebuilt with classic spreadsheet functions
 only (reactions, exact maximum shear and moment, tributary areas, column accumulation, live load
 reduction, governing combination, load balance), all live on the input tables. Add-in formulas
 on other sheets are written as their computed values with a note on each cell; the command lists
-them. A "${NOTICE_SHEET}" sheet says how the file was generated, its units, the code editions and
-that results need a qualified engineer's review. The input is never changed.
+them. A "${NOTICE_SHEET}" sheet says how the file was generated, its units, the code editions,
+the members left out by problems, and that results need a qualified engineer's review. The input
+is never changed.
 
-Takedown sheets are found by their title line. A workbook without one gets a takedown built from
-its tables named Zones, Members and (if present) Loads; or name the tables:
-  --zones <table>     Zones table, sheet or Sheet!A1:G20
-  --members <table>   Members table
-  --loads <table>     Loads table (optional)
-  --units US|SI       unit system (default: from the units in the table headers, else US)
-  --sheet <name>      name of the takedown sheet (default ${DEFAULT_TAKEDOWN_SHEET})
-  --json <file>       also write the takedown results (design.md JSON) and the value-only list
+Takedown sheets are found by their title line. A workbook without one, or a command naming a
+table (--zones, --members, --loads, --map) or --sheet, gets one takedown built from its tables
+(default: the tables or sheets named Zones, Members and, if present, Loads).
 
-Exit status: 0 written, 1 problems stopped a takedown (nothing written), 2 usage or file errors.`;
+  -o, --output   hand-off workbook to write (never the input file); without -o the takedowns
+                 are rebuilt and checked, and nothing is written
+  --json         also write the takedown results (fields in docs/interface.md) and the
+                 value-only list
+${TABLE_OPTIONS_USAGE}
+
+Problems are listed on stderr as Sheet!A1: message. Exit status: 0 written without problems,
+1 problems found (what could be built is still written; members left out are listed on the
+notice sheet), 2 usage or file errors (nothing written). Interface: docs/interface.md.`;
 
 /** A takedown to rebuild: its options (tables, units) and the sheet it goes on. */
 export interface TakedownSpec {
@@ -52,8 +61,13 @@ export interface TakedownSpec {
 
 /** What an export did. */
 export interface ExportReport {
+  /** False when problems stopped a takedown (nothing written). */
   readonly ok: boolean;
   readonly problems: readonly Problem[];
+  /** Which `--units` would fit when the headers show another system than a takedown used. */
+  readonly hints: readonly string[];
+  /** Whether the hand-off file was written (an output was named and every takedown was built). */
+  readonly written: boolean;
   readonly takedowns: readonly { readonly sheet: string; readonly helperSheet: string; readonly members: number; readonly json?: TakedownJson }[];
   readonly valueOnly: readonly ValueOnlyCell[];
   readonly noticeSheet: string;
@@ -65,6 +79,11 @@ export interface ExportOptions {
   readonly takedowns?: readonly TakedownSpec[];
   /** Unit system of a takedown built from the default tables (default: read from their headers). */
   readonly units?: UnitSystem;
+  /**
+   * Table options of the command line: when they name a table, a mapping or a sheet, one
+   * takedown is built from the tables (see {@link takedownsOfRun}).
+   */
+  readonly run?: TakedownRun;
   /** Date written on the notice sheet (default: today, ISO). */
   readonly date?: string;
   /** Folder of the built functions bundle (tests). */
@@ -100,21 +119,12 @@ export function findTakedowns(wb: XlsxWorkbook): TakedownSpec[] {
   return out;
 }
 
-/** Header cells of a table or sheet (the table's header row, else the sheet's first row). */
-function headersOf(wb: XlsxWorkbook, name: string): string[] {
-  const table = wb.tables.find((t) => t.name.toLowerCase() === name.toLowerCase());
-  if (table) return [...table.headers];
-  const sheet = wb.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
-  return (sheet?.rows[0] ?? []).map((v) => (typeof v === "string" ? v.replace(/^'/, "") : String(v ?? "")));
-}
-
 /**
  * The unit system the member tables are written in, from the units in their headers
- * ("Span (m)", "wD (kN/m)" -> SI; otherwise US).
+ * ("Span (m)", "wD (kN/m)" -> SI; "Span (ft)" -> US; none or both -> US).
  */
 export function unitsOfTables(wb: XlsxWorkbook, tables: readonly string[]): UnitSystem {
-  const si = /\((m|mm|kN|kN\/m|kPa|kN\/m2|kN\/m²|m2|m²)\)\s*$/i;
-  return tables.some((t) => headersOf(wb, t).some((h) => si.test(h))) ? "SI" : "US";
+  return unitsShownByHeaders(wb, tables) ?? "US";
 }
 
 /**
@@ -132,7 +142,28 @@ export function takedownsOf(wb: XlsxWorkbook, units?: UnitSystem): TakedownSpec[
   if (zones === undefined || members === undefined) return [];
   const loads = tableOrSheet(wb, "Loads");
   const sheet = DEFAULT_TAKEDOWN_SHEET;
-  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units: units ?? unitsOfTables(wb, [zones, members]), sheetName: sheet } }];
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units: units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]), sheetName: sheet } }];
+}
+
+/**
+ * The takedowns of a command line: when it names a table, a mapping or a sheet, one takedown
+ * from the tables (each not named: the table or sheet so called), in the units given or shown by
+ * the headers, on the sheet given (default "Takedown"); otherwise {@link takedownsOf}.
+ * @param wb - the workbook
+ * @param run - the table options
+ * @throws Error when a table is neither named nor found by its default name
+ */
+export function takedownsOfRun(wb: XlsxWorkbook, run: TakedownRun): TakedownSpec[] {
+  if (!namesTables(run) && run.sheet === undefined) {
+    return takedownsOf(wb, run.units).map((t) => ({ ...t, options: { ...t.options, ...(run.replace ? { replaceForeign: true } : {}) } }));
+  }
+  const zones = run.zones ?? tableOrSheet(wb, "Zones");
+  const members = run.members ?? tableOrSheet(wb, "Members");
+  if (zones === undefined || members === undefined) throw new Error(`no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
+  const loads = run.loads ?? tableOrSheet(wb, "Loads");
+  const sheet = run.sheet ?? DEFAULT_TAKEDOWN_SHEET;
+  const units = run.units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]);
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
 }
 
 /** Why a LOADPATH formula outside a takedown sheet is written as its value in the hand-off file. */
@@ -195,25 +226,32 @@ function writeValueOnly(wb: XlsxWorkbook, cells: readonly (ValueOnlyCell & { val
 
 /**
  * Read a workbook, rebuild its takedowns with classic functions, turn the other add-in formulas
- * into values, add the notice sheet and write the hand-off file.
+ * into values, add the notice sheet (listing the members problems left out) and write the
+ * hand-off file (whole or not at all). Nothing is written when problems stop a takedown.
  * @param input - the workbook (.xlsx)
- * @param output - the hand-off file to write (never the input unless the caller names it)
+ * @param output - the hand-off file to write (never the input unless the caller names it);
+ *   undefined: build and check only
  * @param options - takedowns to build (default: found by title), notice date, bundle folder
  */
-export async function exportHandoff(input: string, output: string, options: ExportOptions = {}): Promise<ExportReport> {
-  const wb = await readXlsx(input);
+export async function exportHandoff(input: string, output: string | undefined, options: ExportOptions = {}): Promise<ExportReport> {
+  const wb = await readInputWorkbook(input);
   const port = await MemoryWorkbookPort.create({
     sheets: engineSheets(wb),
     tables: wb.tables.map(({ name, sheet, ref }) => ({ name, sheet, ref })),
     ...(options.distDir ? { distDir: options.distDir } : {}),
   });
-  const specs = options.takedowns ?? takedownsOf(wb, options.units);
+  const specs = options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units));
   const problems: Problem[] = [];
+  const hints: string[] = [];
   const takedowns: { sheet: string; helperSheet: string; members: number; json?: TakedownJson }[] = [];
   for (const spec of specs) {
     const result = await buildTakedown(port, { ...spec.options, sheetName: spec.sheet, native: true });
     problems.push(...result.problems);
-    if (!result.ok) return { ok: false, problems, takedowns, valueOnly: [], noticeSheet: "" };
+    const { zones, members, loads } = spec.options;
+    const headerUnits = unitsShownByHeaders(wb, [zones, members, ...(loads ? [loads] : [])]);
+    const hint = result.problems.length > 0 ? unitsHint({ options: spec.options, ...(headerUnits ? { headerUnits } : {}) }) : undefined;
+    if (hint !== undefined) hints.push(hint);
+    if (!result.ok) return { ok: false, problems, hints, written: false, takedowns, valueOnly: [], noticeSheet: "" };
     const j = result.json;
     const marks = new Set([...Object.keys(j?.members ?? {}), ...Object.keys(j?.columns ?? {}), ...Object.keys(j?.foundations ?? {})]);
     takedowns.push({ sheet: spec.sheet, helperSheet: helperSheetName(spec.sheet), members: marks.size, ...(j ? { json: j } : {}) });
@@ -241,19 +279,38 @@ export async function exportHandoff(input: string, output: string, options: Expo
       source: input.replace(/^.*[\\/]/, ""),
       takedowns: takedowns.map((t) => ({ sheet: t.sheet, helperSheet: t.helperSheet, units: units.get(t.sheet) ?? "US", members: t.members })),
       valueOnly: valueOnly.map(({ value: _value, ...rest }) => rest),
-    }),
+    }).concat(leftOutRows(problems)),
   );
-  await writeXlsx(wb, resolve(output));
-  return { ok: true, problems, takedowns, valueOnly: valueOnly.map(({ value: _value, ...rest }) => rest), noticeSheet: name };
+  if (output !== undefined) await writeXlsx(wb, resolve(output));
+  return { ok: true, problems, hints, written: output !== undefined, takedowns, valueOnly: valueOnly.map(({ value: _value, ...rest }) => rest), noticeSheet: name };
 }
 
-/** The lines printed for a report. */
-export function reportLines(report: ExportReport, output: string): { out: string[]; err: string[] } {
-  const err = report.problems.map(describeTakedownProblem);
+/**
+ * Rows of the notice sheet about problems: the members they left out, one row per problem with
+ * its cell (none when there were no problems).
+ * @param problems - the problems of every takedown built
+ */
+export function leftOutRows(problems: readonly Problem[]): (string | null)[][] {
+  if (problems.length === 0) return [];
+  return [
+    [],
+    [`Problems found (${problems.length}): the members they concern are left out of the takedown, or carry less load than they should, until the input tables are corrected and the file is exported again.`],
+    ...problems.map((p) => [describeTakedownProblem(p)]),
+  ];
+}
+
+/**
+ * The lines printed for a report.
+ * @param report - what the export did
+ * @param output - the file named with -o (undefined: check only)
+ */
+export function reportLines(report: ExportReport, output: string | undefined): { out: string[]; err: string[] } {
+  const err = [...report.problems.map(describeTakedownProblem), ...report.hints.map((h) => `loadpath export: ${h}`)];
   if (!report.ok) return { out: [], err: [...err, "loadpath export: problems stopped the takedown; nothing written."] };
-  const out = [`Hand-off workbook written to ${output}.`];
+  const out = [output !== undefined ? `Hand-off workbook written to ${output}.` : "Hand-off workbook built and checked; check only, nothing written (give -o <handoff.xlsx> to write it)."];
   if (report.takedowns.length === 0) out.push("No takedown sheet or Zones and Members tables found (give --zones and --members to build one).");
   for (const t of report.takedowns) out.push(`  ${t.sheet}: ${t.members} members rebuilt with classic spreadsheet functions; exact shear and moment maxima on "${t.helperSheet}".`);
+  if (report.problems.length > 0) out.push(`  Problems: ${report.problems.length}, listed on stderr${output !== undefined ? ` and on "${report.noticeSheet}"` : ""}; the members they concern are left out or incomplete.`);
   if (report.valueOnly.length === 0) out.push("  Written as values (not live): none; every result is a live formula.");
   else {
     out.push(`  Written as values (not live; recompute with the add-in after a change): ${report.valueOnly.length} cell(s):`);
@@ -268,55 +325,31 @@ const exportCommand: Command = {
   summary: "write a hand-off copy that recalculates without the add-in (Excel, LibreOffice Calc, Gnumeric)",
   usage: USAGE,
   async run(args, io: CliIO) {
-    const parsed = parseVerbArgs(
-      "export",
-      USAGE,
-      args,
-      {
-        output: { type: "string", short: "o" },
-        zones: { type: "string" },
-        members: { type: "string" },
-        loads: { type: "string" },
-        units: { type: "string" },
-        sheet: { type: "string" },
-        json: { type: "string" },
-      },
-      io,
-    );
+    const parsed = parseVerbArgs("export", USAGE, args, { output: { type: "string", short: "o" }, json: { type: "string" }, ...tableOptions() }, io);
     if (!parsed) return EXIT.usage;
-    const [input, ...extra] = parsed.positionals;
+    const input = singleInput("export", USAGE, parsed.positionals, io);
+    if (input === undefined) return EXIT.usage;
     const v = parsed.values;
-    if (input === undefined || extra.length > 0 || v.output === undefined) {
-      io.err(`loadpath export: ${input === undefined ? "no input workbook given" : v.output === undefined ? "no output file given (-o)" : "one input workbook at a time"}.\n\n${USAGE}`);
+    const output = typeof v.output === "string" ? v.output : undefined;
+    const jsonPath = typeof v.json === "string" ? v.json : undefined;
+    const outputs = [output !== undefined ? { option: "-o", path: output } : undefined, jsonPath !== undefined ? { option: "--json", path: jsonPath } : undefined];
+    if (outputsRefused("export", [input], outputs, io)) return EXIT.usage;
+    const checked = runOfOptions(v);
+    if ("error" in checked) {
+      io.err(`loadpath export: ${checked.error}`);
       return EXIT.usage;
     }
-    if (writesOverInput("export", input, [v.output, v.json], io)) return EXIT.usage;
-    const units = v.units?.toUpperCase();
-    if (units !== undefined && units !== "US" && units !== "SI") {
-      io.err(`loadpath export: --units "${v.units}" is not US or SI.`);
-      return EXIT.usage;
-    }
-    if ((v.zones === undefined) !== (v.members === undefined)) {
-      io.err("loadpath export: give both --zones and --members (or neither, to rebuild the takedown sheets found in the file).");
-      return EXIT.usage;
-    }
-    const sheet = v.sheet ?? DEFAULT_TAKEDOWN_SHEET;
-    const takedowns =
-      v.zones !== undefined && v.members !== undefined
-        ? [{ sheet, options: { zones: v.zones, members: v.members, ...(v.loads ? { loads: v.loads } : {}), units: (units ?? "US") as UnitSystem, sheetName: sheet } }]
-        : undefined;
-    const { output, json: jsonPath } = v;
     return usageOnThrow("export", io, async () => {
-      const report = await exportHandoff(input, output, { ...(takedowns ? { takedowns } : {}), ...(units ? { units: units as UnitSystem } : {}) });
+      const report = await exportHandoff(input, output, { run: checked.run });
       const lines = reportLines(report, output);
       lines.err.forEach((l) => io.err(l));
       lines.out.forEach((l) => io.out(l));
-      if (jsonPath && report.ok) {
-        const { writeFileSync } = await import("node:fs");
+      if (jsonPath !== undefined && report.ok) {
         const json = { takedowns: Object.fromEntries(report.takedowns.map((t) => [t.sheet, t.json ?? null])), valueOnly: report.valueOnly };
-        writeFileSync(resolve(jsonPath), JSON.stringify(json, null, 2));
+        await writeTextAtomically(resolve(jsonPath), JSON.stringify(json, null, 2) + "\n");
+        io.out(`Results written to ${jsonPath}.`);
       }
-      return report.ok ? EXIT.ok : EXIT.failed;
+      return report.ok && report.problems.length === 0 ? EXIT.ok : EXIT.failed;
     });
   },
 };

@@ -4,19 +4,20 @@
  * computed values cached, and report each formula error on stderr as `Sheet!A1: message`.
  */
 import { resolve } from "node:path";
-import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx, type CellProblem, type RecalcSummary } from "../../workbook/xlsx";
-import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
+import { cacheResults, evaluateWorkbook, problemAddress, writeXlsx, type CellProblem, type RecalcSummary } from "../../workbook/xlsx";
+import { EXIT, outputsRefused, parseVerbArgs, readInputWorkbook, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
 
 const USAGE = `Usage: loadpath recalc <in.xlsx> [-o <out.xlsx>]
 
 Recalculates every formula of the workbook (LOADPATH functions included) and writes it to
 <out.xlsx> with the computed values cached, so it reads correctly without the add-in. Without -o
-nothing is written (a check only). The input is never written over.
+nothing is written (a check only). The input is never written over; the output is written whole
+or not at all.
 
 Errors are listed on stderr as Sheet!A1: message (unknown functions, circular references,
 formula errors). Exit status: 0 when every LOADPATH call succeeded, 1 when any returned an
-error, 2 for usage or file errors.`;
+error (the workbook is still written), 2 for usage or file errors (a file that cannot be read:
+nothing written). Interface: docs/interface.md.`;
 
 /** One stderr line for a problem cell. */
 export function describeProblem(p: CellProblem): string {
@@ -28,7 +29,7 @@ export function describeProblem(p: CellProblem): string {
 export function summaryLine(s: RecalcSummary, output: string | undefined): string {
   const errors = s.problems.length;
   const head = `${s.formulaCount} formula${s.formulaCount === 1 ? "" : "s"} recalculated (${s.loadpathCount} with LOADPATH calls), ${errors} with errors`;
-  return output ? `${head}; written to ${output}.` : `${head}; nothing written (no -o).`;
+  return output ? `${head}; written to ${output}.` : `${head}; check only, nothing written (no -o).`;
 }
 
 /** Exit status of a recalculation: 1 when any LOADPATH call ended in an error. */
@@ -44,7 +45,7 @@ export function exitStatus(s: RecalcSummary): number {
  * @returns the exit status.
  */
 export async function recalcFile(input: string, output: string | undefined, io: CliIO): Promise<number> {
-  const wb = await readXlsx(input);
+  const wb = await readInputWorkbook(input);
   const headless = await evaluateWorkbook(wb);
   const summary = cacheResults(wb, headless);
   for (const p of summary.problems) io.err(describeProblem(p));
@@ -61,8 +62,9 @@ const recalc: Command = {
     if (!parsed) return EXIT.usage;
     const input = singleInput("recalc", USAGE, parsed.positionals, io);
     if (input === undefined) return EXIT.usage;
-    if (writesOverInput("recalc", input, [parsed.values.output], io)) return EXIT.usage;
-    return usageOnThrow("recalc", io, () => recalcFile(input, parsed.values.output, io));
+    const output = parsed.values.output;
+    if (outputsRefused("recalc", [input], [output !== undefined ? { option: "-o", path: output } : undefined], io)) return EXIT.usage;
+    return usageOnThrow("recalc", io, () => recalcFile(input, output, io));
   },
 };
 

@@ -1,28 +1,25 @@
 /**
- * `loadpath report <in.xlsx> -o report.html [--members B-12,G-3 | --all] [--units US|SI] ...`:
+ * `loadpath report <in.xlsx> -o report.html [--only B-12,G-3 | --all] [--units US|SI] ...`:
  * the printable calculation report of the takedown. Builds the takedown headless (the same build
  * as `loadpath takedown`), reads every member's loads and results back from the computed sheet,
  * and writes one self-contained HTML file (no scripts, nothing loaded) that prints cleanly to PDF
- * from a browser. The input file is never written.
+ * from a browser. The input file is never written; the report is written whole or not at all.
  */
-import { writeFileSync } from "node:fs";
 import { basename, extname, join, resolve } from "node:path";
 import type ExcelJS from "exceljs";
 import { isFlexural } from "../../engine/takedown/model";
 import { collectTakedown, renderReport, type TakedownRecord } from "../../report";
+import { writeTextAtomically } from "../../workbook/files";
 import type { XlsxWorkbook } from "../../workbook/xlsx";
-import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
-import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
+import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
+import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
 import { describeTakedownProblem } from "./takedown";
 
-/** The option naming the Members table (`--members` chooses the members of the report). */
-const MEMBERS_TABLE_OPTION = "members-table";
-
-const USAGE = `Usage: loadpath report <in.xlsx> -o <report.html> [--members <mark,mark,...> | --all]
-                       [--units US|SI] [--zones <name>] [--members-table <name>] [--loads <name>]
-                       [--map <table>.<Column>=<your header> ...] [--project <name>] [--date <text>]
+const USAGE = `Usage: loadpath report <in.xlsx> [-o <report.html>] [--only <mark,mark,...> | --all]
+                       [--zones <name>] [--members <name>] [--loads <name>]
+                       [--map <table>.<Column>=<your header> ...] [--units US|SI]
+                       [--sheet <name>] [--replace] [--project <name>] [--date <text>]
 
 Writes a printable calculation report of the workbook's load takedown: a title block (project,
 engineer, date, units, code editions), the assumptions, a section for each chosen member (its
@@ -32,21 +29,19 @@ shear and moment diagrams and its load path), the column schedule with cumulativ
 live load reduction, the foundation reactions and the load balance. One HTML file with no
 scripts and nothing to load; print it to PDF from a browser.
 
-  -o, --output     HTML file to write (never the input file)
-  --members        marks of the members to detail, separated by commas (repeatable)
+  -o, --output     HTML file to write (never the input file); without -o the takedown and the
+                   report are built and checked, and nothing is written
+  --only           marks of the members to detail, separated by commas (repeatable)
   --all            every beam, girder, joist and column (the default)
-  --units          US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default US
-  --zones, --members-table, --loads
-                   Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
-                   default: the table or sheet named Zones, Members and (if present) Loads
-  --map            a column whose header differs, e.g. --map members.Trib="Trib width"
+${TABLE_OPTIONS_USAGE}
   --project        project name (default: the workbook's title, its defined name Project,
                    else the file name)
   --date           date printed in the title block (default: today)
 
 Problems are listed on stderr as Sheet!A1: message and in the report. Exit status: 0 written
 without problems, 1 problems found (the report of what could be built is still written),
-2 usage or file errors. Results need review by a qualified engineer; local codes govern.`;
+2 usage or file errors (nothing written). Interface: docs/interface.md.
+Results need review by a qualified engineer; local codes govern.`;
 
 /** Text of a cell as the user sees it (rich text and formulas' results included). */
 function cellText(cell: ExcelJS.Cell): string {
@@ -80,7 +75,7 @@ function today(): string {
   return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}-${String(d.getDate()).padStart(2, "0")}`;
 }
 
-/** Marks of `--members` (comma-separated, repeatable), trimmed, without blanks. */
+/** Marks of `--only` (comma-separated, repeatable), trimmed, without blanks. */
 export function parseMarks(values: readonly string[]): string[] {
   return values.flatMap((v) => v.split(",")).map((m) => m.trim()).filter((m) => m !== "");
 }
@@ -114,8 +109,11 @@ export interface ReportFileResult {
  * @param io - where problems and messages go
  */
 export async function reportOfFile(input: string, run: TakedownRun, report: ReportRun, io: CliIO): Promise<ReportFileResult> {
-  const { result, workbook, port, options } = await takedownOfFile(input, run, MEMBERS_TABLE_OPTION);
+  const file = await takedownOfFile(input, run);
+  const { result, workbook, port, options } = file;
   for (const p of result.problems) io.err(describeTakedownProblem(p));
+  const hint = result.problems.length > 0 ? unitsHint(file) : undefined;
+  if (hint !== undefined) io.err(`loadpath report: ${hint}`);
   if (!result.ok || !result.json) {
     io.out("Nothing was built: the problems above stop the takedown, so there is no report.");
     return { status: EXIT.failed };
@@ -143,9 +141,9 @@ const report: Command = {
       args,
       {
         output: { type: "string", short: "o" },
-        members: { type: "string", multiple: true },
+        only: { type: "string", multiple: true },
         all: { type: "boolean" },
-        ...tableOptions(MEMBERS_TABLE_OPTION),
+        ...tableOptions(),
         project: { type: "string" },
         date: { type: "string" },
       },
@@ -156,22 +154,18 @@ const report: Command = {
     if (input === undefined) return EXIT.usage;
     const v = parsed.values;
     const output = typeof v.output === "string" ? v.output : undefined;
-    if (output === undefined) {
-      io.err(`loadpath report: name the HTML file to write with -o.\n\n${USAGE}`);
+    if (outputsRefused("report", [input], [output !== undefined ? { option: "-o", path: output } : undefined], io)) return EXIT.usage;
+    const onlyValues = Array.isArray(v.only) ? v.only.filter((m): m is string => typeof m === "string") : [];
+    if (onlyValues.length > 0 && v.all === true) {
+      io.err("loadpath report: give --only or --all, not both.");
       return EXIT.usage;
     }
-    if (writesOverInput("report", input, [output], io)) return EXIT.usage;
-    const memberValues = Array.isArray(v.members) ? v.members.filter((m): m is string => typeof m === "string") : [];
-    if (memberValues.length > 0 && v.all === true) {
-      io.err("loadpath report: give --members or --all, not both.");
+    const marks = parseMarks(onlyValues);
+    if (onlyValues.length > 0 && marks.length === 0) {
+      io.err("loadpath report: --only lists no mark.");
       return EXIT.usage;
     }
-    const marks = parseMarks(memberValues);
-    if (memberValues.length > 0 && marks.length === 0) {
-      io.err("loadpath report: --members lists no mark.");
-      return EXIT.usage;
-    }
-    const checked = runOfOptions(v, MEMBERS_TABLE_OPTION);
+    const checked = runOfOptions(v);
     if ("error" in checked) {
       io.err(`loadpath report: ${checked.error}`);
       return EXIT.usage;
@@ -179,8 +173,12 @@ const report: Command = {
     return usageOnThrow("report", io, async () => {
       const r = await reportOfFile(input, checked.run, { ...(marks.length > 0 ? { members: marks } : {}), ...(typeof v.project === "string" ? { project: v.project } : {}), ...(typeof v.date === "string" ? { date: v.date } : {}) }, io);
       if (r.html === undefined) return r.status;
-      writeFileSync(resolve(output), r.html);
       const n = marks.length > 0 ? marks.length : allMembers(r.record!).length;
+      if (output === undefined) {
+        io.out(`Calculation report of ${n} member(s) built and checked; check only, nothing written (give -o <report.html> to write it).`);
+        return r.status;
+      }
+      await writeTextAtomically(resolve(output), r.html);
       io.out(`Calculation report of ${n} member(s) written to ${output} (open it in a browser; print to PDF from there).`);
       return r.status;
     });
@@ -197,7 +195,7 @@ export const reportDemoPart: DemoPart = {
     const r = await reportOfFile(input, { units: "US" }, {}, io);
     if (r.html === undefined) return r.status === EXIT.ok ? EXIT.failed : r.status;
     const output = join(ctx.outDir, "steel-office-us-report.html");
-    writeFileSync(output, r.html);
+    await writeTextAtomically(output, r.html);
     const members = allMembers(r.record!);
     io.out(`${members.length} members detailed (every beam, girder and column), with the column schedule, foundation reactions and load balance.`);
     io.out(`Report: ${output}`);

@@ -3,27 +3,27 @@
  * takedown builder headless. Reads the workbook's Zones, Members and (optional) Loads tables,
  * builds the takedown through the HyperFormula adapter of the workbook port (the same build the
  * task pane runs in Excel), writes the workbook with the generated sheet (formulas with their
- * computed values cached) and the JSON of design.md section 5. Problems print as
- * `Sheet!A1: message` and make the exit status 1. The input file is never written over.
+ * computed values cached) and the JSON of docs/interface.md. Problems print as
+ * `Sheet!A1: message` and make the exit status 1. The input file is never written over; every
+ * output is written whole or not at all.
  */
-import { writeFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { sheetRef } from "../../workbook/a1";
 import { exportSheets } from "../../workbook/memory-port";
 import { DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
+import { writeTextAtomically } from "../../workbook/files";
 import { cacheResults, writeXlsx } from "../../workbook/xlsx";
 import type { Problem, TakedownBuildResult, TakedownJson, UnitSystem } from "../../workbook/takedown-api";
-import { EXIT, type CliIO, type Command } from "../main";
-import { parseVerbArgs, singleInput, usageOnThrow, writesOverInput } from "../shared";
-import { runOfOptions, tableOptions, takedownOfFile, type TakedownRun } from "../takedown-input";
+import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
+import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
 
 export { parseMappings, takedownOfFile, type TakedownFileResult, type TakedownRun } from "../takedown-input";
 
-const USAGE = `Usage: loadpath takedown <in.xlsx> -o <out.xlsx> [--json <result.json>] [--units US|SI]
+const USAGE = `Usage: loadpath takedown <in.xlsx> [-o <out.xlsx>] [--json <result.json>] [--native]
                          [--zones <name>] [--members <name>] [--loads <name>]
-                         [--map <table>.<Column>=<your header> ...] [--sheet <name>] [--replace]
-                         [--native]
+                         [--map <table>.<Column>=<your header> ...] [--units US|SI]
+                         [--sheet <name>] [--replace]
 
 Builds the gravity load takedown of the workbook's member tables: every member in takedown order
 with its loads, reactions, shear and moment, tributary area and live load reduction; every
@@ -31,20 +31,16 @@ column level by level with cumulative loads and the factored load; the foundatio
 a load balance. Everything is written as live formulas on a generated sheet (default
 "${DEFAULT_TAKEDOWN_SHEET}") that references your tables, with the computed values cached.
 
-  -o, --output   workbook to write (never the input file)
-  --json         also write the results as JSON
-  --units        US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default US
-  --zones, --members, --loads
-                 Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
-                 default: the table or sheet named Zones, Members and (if present) Loads
-  --map          a column whose header differs, e.g. --map members.Trib="Trib width"
-  --sheet        name of the generated sheet
-  --replace      replace a same-named sheet the add-in did not create
+  -o, --output   workbook to write (never the input file); without -o no workbook is
+                 written (a check only)
+  --json         also write the results as JSON (fields in docs/interface.md)
   --native       hand-off version: classic spreadsheet functions only, so the sheet recalculates
                  without the add-in (Excel, LibreOffice Calc, Gnumeric); see also loadpath export
+${TABLE_OPTIONS_USAGE}
 
 Problems are listed on stderr as Sheet!A1: message. Exit status: 0 built without problems,
-1 problems found (what could be built is still written), 2 usage or file errors.
+1 problems found (what could be built is still written), 2 usage or file errors (nothing
+written). Every file is written whole or not at all. Interface: docs/interface.md.
 Results need review by a qualified engineer; local codes govern.`;
 
 /** One stderr line per problem: `Sheet!A1: message`. */
@@ -114,12 +110,16 @@ function jsonOf(result: TakedownBuildResult, units: UnitSystem): TakedownJson {
  * @returns the exit status
  */
 export async function takedownFile(input: string, output: string | undefined, jsonPath: string | undefined, run: TakedownRun, io: CliIO): Promise<number> {
-  if (writesOverInput("takedown", input, [output, jsonPath], io)) return EXIT.usage;
-  const { result, workbook, port } = await takedownOfFile(input, run);
+  const outputs = [output !== undefined ? { option: "-o", path: output } : undefined, jsonPath !== undefined ? { option: "--json", path: jsonPath } : undefined];
+  if (outputsRefused("takedown", [input], outputs, io)) return EXIT.usage;
+  const file = await takedownOfFile(input, run);
+  const { result, workbook, port, options } = file;
   for (const p of result.problems) io.err(describeTakedownProblem(p));
+  const hint = result.problems.length > 0 ? unitsHint(file) : undefined;
+  if (hint !== undefined) io.err(`loadpath takedown: ${hint}`);
   if (result.ok && result.json) {
     const counts = Object.entries(result.summary?.membersByType ?? {}).map(([t, n]) => `${n} ${t}${n === 1 ? "" : "s"}`);
-    io.out(`Takedown of ${counts.join(", ")} on ${result.summary?.levels.length ?? 0} level(s), written to sheet "${result.sheet}".`);
+    io.out(`Takedown of ${counts.join(", ")} on ${result.summary?.levels.length ?? 0} level(s), sheet "${result.sheet}" (${options.units} units).`);
     io.out("");
     for (const line of columnLines(result.json)) io.out(line);
     io.out("");
@@ -135,16 +135,18 @@ export async function takedownFile(input: string, output: string | undefined, js
   } else {
     io.out("Nothing was built: the problems above stop the takedown.");
   }
+  io.out("");
   if (output !== undefined && result.ok) {
     cacheResults(workbook, port.headless);
     exportSheets(port, workbook.excel);
     await writeXlsx(workbook, resolve(output));
     io.out(`Workbook written to ${output}.`);
-  }
+  } else if (output !== undefined) io.out(`No workbook written to ${output}: nothing could be built.`);
   if (jsonPath !== undefined) {
-    writeFileSync(resolve(jsonPath), JSON.stringify(jsonOf(result, run.units), null, 2) + "\n");
+    await writeTextAtomically(resolve(jsonPath), JSON.stringify(jsonOf(result, options.units), null, 2) + "\n");
     io.out(`Results written to ${jsonPath}.`);
   }
+  if (output === undefined) io.out(`Check only: no workbook written (give -o <out.xlsx> to write one)${jsonPath === undefined ? "; nothing written." : "."}`);
   return result.problems.length > 0 || !result.ok ? EXIT.failed : EXIT.ok;
 }
 
@@ -160,8 +162,6 @@ const takedown: Command = {
         output: { type: "string", short: "o" },
         json: { type: "string" },
         ...tableOptions(),
-        sheet: { type: "string" },
-        replace: { type: "boolean" },
         native: { type: "boolean" },
       },
       io,
@@ -175,12 +175,7 @@ const takedown: Command = {
       return EXIT.usage;
     }
     const v = parsed.values;
-    const run: TakedownRun = {
-      ...checked.run,
-      ...(v.sheet !== undefined ? { sheet: v.sheet } : {}),
-      replace: v.replace === true,
-      native: v.native === true,
-    };
+    const run: TakedownRun = { ...checked.run, native: v.native === true };
     return usageOnThrow("takedown", io, () => takedownFile(input, v.output, v.json, run, io));
   },
 };

@@ -1,7 +1,7 @@
 /**
  * The exact single-member solver: any supports (pins and fixed, anywhere), any line loads
  * (uniform, trapezoidal, triangular, full or partial), point loads and couples. Conventions and
- * units: see types.ts (design.md section 3); any consistent units.
+ * units: see types.ts (docs/interface.md section 1); any consistent units.
  */
 import * as errors from "../errors";
 import type { Result } from "../errors";

@@ -1,5 +1,5 @@
 /**
- * Public types of the single-member solver. Conventions (design.md section 3):
+ * Public types of the single-member solver. Conventions (docs/interface.md section 1):
  * x runs from the left end (0) to the right end (span). Gravity loads are positive
  * downward. Reactions are positive upward. Bending moment is positive sagging. Shear V = dM/dx
  * (so V just right of a simple left support equals its reaction). Applied moments and reaction

@@ -1,6 +1,6 @@
 /**
  * Input checks of the single-member solver. Every failure names its argument and, for the
- * `loads` and `supports` lists, the 1-based row (index + 1), as design.md asks.
+ * `loads` and `supports` lists, the 1-based row (index + 1), as docs/interface.md section 1 states.
  */
 import * as errors from "../errors";
 import type { Result } from "../errors";

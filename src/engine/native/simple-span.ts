@@ -2,7 +2,7 @@
  * Classic-function formulas for a member on two pins (simple span, with overhangs when the pins
  * are not at the ends): reactions, and the exact largest moment and shear, as formula text that
  * Excel, LibreOffice Calc and Gnumeric all evaluate (arithmetic, comparisons, SUMPRODUCT, SMALL,
- * INDEX, IF, MIN, MAX, ABS, SQRT). Conventions of design.md section 3: x from the left end,
+ * INDEX, IF, MIN, MAX, ABS, SQRT). Conventions of docs/interface.md section 1: x from the left end,
  * gravity loads positive downward, reactions positive upward, sagging moment positive,
  * V = dM/dx.
  *

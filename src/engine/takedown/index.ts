@@ -26,7 +26,7 @@ export { orderTakedown, levelsTopDown, levelHeightHint } from "./order";
 export { layoutOf, channelsOf, COL, type Layout, type Channel } from "./layout";
 
 /**
- * Column mapping for tables whose headers differ from the defaults of design.md section 4:
+ * Column mapping for tables whose headers differ from the defaults of docs/interface.md section 2:
  * canonical header (e.g. "Trib") -> the header the user's table has (e.g. "Trib width").
  */
 export interface TableMapping {

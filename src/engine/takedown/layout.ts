@@ -2,7 +2,7 @@
  * Columns of the generated takedown sheet. Loads are carried through the takedown in channels:
  * one per load case present, plus "L red." (the part of L on reducible zones) when some live load
  * is not reducible, and "A_T" (1 per unit area on reducible zones: its reaction is the
- * tributary area for live load reduction, design.md section 4).
+ * tributary area for live load reduction, docs/interface.md section 2).
  */
 import { RESULT_UNITS } from "./units";
 import type { LoadCase, UnitSystem } from "./types";

@@ -8,7 +8,7 @@ import { formatNumber, isErrorValue, numberOf, textOf, yesNoOf } from "./cells";
 import { problemAt, tableCell, type LoadsColumn, type MatchedTable, type MembersColumn, type ZonesColumn } from "./tables";
 import { LOAD_CASES, type CellRef, type CellValue, type LoadCase, type Problem, type UnitSystem } from "./types";
 
-/** Member types of design.md section 4. */
+/** Member types of docs/interface.md section 2. */
 export type MemberType = "beam" | "girder" | "joist" | "column" | "wall" | "foundation";
 
 /** Type words accepted in the Type column (lower case) -> member type; blank is a beam. */

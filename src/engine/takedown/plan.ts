@@ -59,7 +59,7 @@ export interface PlanInput {
   readonly writer?: FormulaWriter;
 }
 
-/** Caution carried by every generated sheet (design.md section 6). */
+/** Caution carried by every generated sheet (DEVELOPERS.md, Rules every change keeps). */
 export const CAUTION =
   "Caution: a calculation aid. Every result needs review by a qualified engineer, who remains responsible for the design; code provisions apply where the local jurisdiction adopts them, and local codes govern.";
 

@@ -1,5 +1,5 @@
 /**
- * The results of a takedown read back from the computed sheet: the JSON of design.md section 5
+ * The results of a takedown read back from the computed sheet: the JSON of docs/interface.md section 4
  * and the summary the pane shows. Values come from the sheet's cells (computed by the workbook's
  * engine); the list of load combinations of each column is evaluated with the engine's ASCE/SEI
  * 7-22 combinations from the column's computed totals, the same code LOADPATH.COMBINE runs.
@@ -33,7 +33,7 @@ export interface ColumnResult {
   readonly combos: Readonly<Record<string, number>>;
 }
 
-/** The JSON of design.md section 5. */
+/** The JSON of docs/interface.md section 4. */
 export interface TakedownResults {
   readonly units: UnitSystem;
   readonly members: Readonly<Record<string, MemberResult>>;

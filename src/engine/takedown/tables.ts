@@ -1,7 +1,7 @@
 /**
  * Reading the engineer's tables: header matching (case-insensitive, a trailing "(unit)" ignored),
  * the user's column mapping for headers that differ, and the check of each header's unit against
- * the chosen unit system (design.md section 4).
+ * the chosen unit system (docs/interface.md section 2).
  */
 import { a1 } from "./a1";
 import { unitFits, UNIT_NAMES, type Quantity } from "./units";
@@ -40,7 +40,7 @@ export const ZONES_SPEC = {
 } as const satisfies TableSpec<string>;
 
 /**
- * Members: design.md section 4, plus wR (rain line load) and the optional overhangs beyond each
+ * Members: docs/interface.md section 2, plus wR (rain line load) and the optional overhangs beyond each
  * support (Start overhang, End overhang), which lengthen the member past its span.
  */
 export const MEMBERS_SPEC = {

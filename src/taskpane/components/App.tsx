@@ -25,7 +25,7 @@ import { DiagramsView } from "./Diagrams";
 import { ColumnMatcher, TablePicker, UnitsPicker } from "./Inputs";
 import { ProblemList, SummaryView } from "./Results";
 
-/** The caution every surface carries (design.md section 6). */
+/** The caution every surface carries (DEVELOPERS.md, Rules every change keeps). */
 export const CAUTION =
   "Results are a calculation aid: a qualified engineer must review them; local codes govern (the codes adopted where the building stands).";
 

@@ -1,2 +1,2 @@
-/** The caution every generated output carries (design.md section 6). */
+/** The caution every generated output carries (DEVELOPERS.md, Rules every change keeps). */
 export const REVIEW_NOTICE = "For review by a qualified engineer; local codes govern.";

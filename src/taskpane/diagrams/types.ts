@@ -1,7 +1,7 @@
 /**
  * Inputs of the drawings. They describe one member as the engineer knows it (marks of what
  * holds it up, marks of the members whose reactions it receives) plus the numbers the beam
- * engine needs. Sign conventions are those of design.md section 3: loads down +, reactions
+ * engine needs. Sign conventions are those of docs/interface.md section 1: loads down +, reactions
  * up +, moments counter-clockwise +, bending moment sagging +, deflection down +.
  */
 import type { SupportType } from "../../engine/beam/types";

@@ -1,7 +1,7 @@
 /**
  * Bad input and unstable supports: every failure is a value (never an exception) whose code is
  * from the closed set in src/engine/errors.ts and whose message names the argument and, for the
- * loads and supports lists, the 1-based row (design.md section 3). Which layouts are unstable is
+ * loads and supports lists, the 1-based row (docs/interface.md section 1). Which layouts are unstable is
  * statics (common practice): a member needs a fixed support or pins at two different points.
  */
 import { describe, expect, it } from "vitest";

@@ -1,5 +1,5 @@
 /**
- * Header matching of the member tables (design.md section 4): case-insensitive, a trailing
+ * Header matching of the member tables (docs/interface.md section 2): case-insensitive, a trailing
  * "(unit)" ignored, a column mapping for differently named headers, and units checked against the
  * unit system of the takedown.
  */
