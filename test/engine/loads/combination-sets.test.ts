@@ -7,6 +7,7 @@ import {
   expandedRows,
   governingCombination,
   LOAD_CASES,
+  parseCombinationMethod,
   parseCombinationTable,
   setOfMethod,
   type CombinationSet,
@@ -14,6 +15,7 @@ import {
   type LoadEffects,
 } from "../../../src/engine/loads";
 import type { Result } from "../../../src/engine/errors";
+import { combinationsOfSet } from "../../../src/engine/envelope";
 
 function value<T>(r: Result<T>): T {
   if (!r.ok) throw new Error(r.error.message);
@@ -170,6 +172,22 @@ describe("a firm's Combinations table", () => {
     const empty: CombinationSet = { name: "none", method: "LRFD", rows: [] };
     expect(errorOf(evaluateCombinations(empty, zero, "max"))).toBe('combinations: the set "none" has no combination.');
     expect(errorOf(evaluateCombinations(builtInSet("ASD"), { ...zero, L: Number.NaN }, "max"))).toMatch(/^L: /);
+  });
+});
+
+describe("methods and the envelope's view of a set", () => {
+  it("method keys: LRFD (blank), ASD, service, case-insensitive; others an error listing the three", () => {
+    expect(parseCombinationMethod(null)).toEqual({ ok: true, value: "LRFD" });
+    expect(parseCombinationMethod(" SERVICE ")).toEqual({ ok: true, value: "service" });
+    expect(errorOf(parseCombinationMethod("USD"))).toBe('method: "USD" is not a method; use one of LRFD, ASD, service.');
+  });
+
+  it("the envelope takes a firm's set with its reversed rows", () => {
+    const set = value(parseCombinationTable([HEADER, ["up", "LRFD", 0.9, null, null, null, null, null, 1]]))[0]!;
+    expect(combinationsOfSet(set)).toEqual([
+      { label: "up", factors: { D: 0.9, E: 1 } },
+      { label: "up (-E)", factors: { D: 0.9, E: -1 } },
+    ]);
   });
 });
 
