@@ -10,16 +10,20 @@
  */
 /* eslint-disable @typescript-eslint/no-explicit-any -- parameter types are what the metadata generator maps */
 import {
-  combinationValues,
-  governingCombination,
+  builtInSet,
+  COMBINATION_TABLE_MAX_ROWS,
+  evaluateCombinations,
   heavyLiveLoad,
   kllOf,
   lineLoad,
   reducedLiveLoad,
   reducedRoofLiveLoad,
+  parseCombinationTable,
+  setOfMethod,
   tributaryWidth,
-  type CombinationOptions,
-  type DesignMethod,
+  type CombinationMethod,
+  type CombinationResult,
+  type CombinationSet,
   type ExtremeKind,
   type LoadEffects,
   type UnitSystem,
@@ -29,7 +33,7 @@ import { arg, asHostMatrix, asHostNumber, defineArgs, runFunction, type ArgValue
 import { padToSize, shapeOfValue, spillSize } from "./spill";
 
 const UNITS = { US: "US", SI: "SI" } as const;
-const METHODS = { LRFD: "LRFD", ASD: "ASD" } as const;
+const METHODS = { LRFD: "LRFD", ASD: "ASD", service: "service" } as const;
 const EXTREMES = { max: "max", min: "min" } as const;
 const YES_NO = { TRUE: "TRUE", FALSE: "FALSE", "1": "TRUE", "0": "FALSE", YES: "TRUE", NO: "FALSE" } as const;
 
@@ -87,6 +91,8 @@ const COMBINE_ARGS = defineArgs(
   arg.optionalText("method", "LRFD", METHODS),
   arg.optionalText("extreme", "max", EXTREMES),
   arg.optionalText("half_live", "FALSE", YES_NO),
+  // header row + at most COMBINATION_TABLE_MAX_ROWS combinations (trailing blank rows are not counted)
+  arg.optionalRange("combinations", { maxRows: COMBINATION_TABLE_MAX_ROWS + 1 }),
 );
 
 type CombineArgs = ArgValues<typeof COMBINE_ARGS>;
@@ -95,16 +101,30 @@ function effectsOf(a: CombineArgs): LoadEffects {
   return { D: a.D, L: a.L, Lr: a.Lr, S: a.S, R: a.R, W: a.W, E: a.E };
 }
 
-function optionsOf(a: CombineArgs): CombinationOptions {
-  return { method: a.method as DesignMethod, halfLive: a.half_live === "TRUE" };
+/**
+ * The combinations of the chosen method: from the combinations range when given (a firm's own
+ * table, header row first; half_live does not apply), else the built-in set.
+ */
+function setOf(a: CombineArgs): Result<CombinationSet> {
+  const method = a.method as CombinationMethod;
+  if (a.combinations === undefined) return ok(builtInSet(method, a.half_live === "TRUE"));
+  const sets = parseCombinationTable(a.combinations);
+  return sets.ok ? setOfMethod(sets.value, method) : sets;
+}
+
+/** Every combination of the set with its value and the governing one (the engine's one evaluator). */
+function evaluated(a: CombineArgs): Result<CombinationResult> {
+  const set = setOf(a);
+  return set.ok ? evaluateCombinations(set.value, effectsOf(a), a.extreme as ExtremeKind) : set;
 }
 
 // Reading of W and E: the standard's wind and seismic load effects act in either direction, so every
 // combination holding them is evaluated with +W and -W (+E and -E). E is the user's seismic load
 // effect with Eh and Ev combined; Ev is not computed or separated (README, load functions).
 /**
- * Governing value of the ASCE/SEI 7-22 basic load combinations, LRFD Sec. 2.3.1/2.3.6 (default) or
- * ASD Sec. 2.4.1/2.4.5, from the load effect of each case (one consistent unit, gravity positive).
+ * Governing value of the ASCE/SEI 7-22 basic load combinations, LRFD Sec. 2.3.1/2.3.6 (default),
+ * ASD Sec. 2.4.1/2.4.5 or service (D + L level, common practice), from the load effect of each case
+ * (one consistent unit, gravity positive), or of your own combinations given as a range.
  * W and E are taken with both signs, so extreme "min" gives uplift; each of Lr, S, R is tried.
  * Factors recalled from memory: verify. Example: =LOADPATH.COMBINE(12, 9, 3) gives 30.3.
  * @customfunction COMBINE
@@ -115,25 +135,28 @@ function optionsOf(a: CombineArgs): CombinationOptions {
  * @param [R] Rain load effect. Default 0.
  * @param [W] Wind load effect, taken with both signs. Default 0.
  * @param [E] Seismic load effect with Eh and Ev combined (Ev is not computed here; enter |Eh| + |Ev| to cover 1.2D + Ev + Eh and 0.9D - Ev - Eh), taken with both signs. Default 0.
- * @param [method] "LRFD" (strength, Sec. 2.3, default) or "ASD" (allowable stress, Sec. 2.4).
+ * @param [method] "LRFD" (strength, Sec. 2.3, default), "ASD" (allowable stress, Sec. 2.4) or "service" (deflection and bearing, common practice).
  * @param [extreme] "max" (default) for the largest value, "min" for the smallest (uplift).
- * @param [half_live] TRUE applies 0.5L in LRFD combinations 3, 4 and 6, permitted where Lo <= 100 psf (4.79 kN/m²) except garages and public assembly. Default FALSE; ignored for ASD.
+ * @param [half_live] TRUE applies 0.5L in LRFD combinations 3, 4 and 6, permitted where Lo <= 100 psf (4.79 kN/m²) except garages and public assembly. Default FALSE; ignored for ASD, service and your own combinations.
+ * @param [combinations] Your own combinations instead of the built-in ones: a range with the header row Combination | Method | D | L | Lr | S | R | W | E and one combination per row (name, method LRFD, ASD or service, factors; blank = 0). The rows of the chosen method are used.
  * @returns The governing combined load effect, same unit as the inputs.
  */
-export function combine(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?: any, method?: any, extreme?: any, half_live?: any): number {
+export function combine(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?: any, method?: any, extreme?: any, half_live?: any, combinations?: any[][]): number {
   return asHostNumber(
-    runFunction(COMBINE_ARGS, [D, L, Lr, S, R, W, E, method, extreme, half_live], (a) =>
-      ok(governingCombination(effectsOf(a), optionsOf(a), a.extreme as ExtremeKind).value),
-    ),
+    runFunction(COMBINE_ARGS, [D, L, Lr, S, R, W, E, method, extreme, half_live, combinations], (a) => {
+      const r = evaluated(a);
+      return r.ok ? ok(r.value.governing.value) : r;
+    }),
   );
 }
 
 /**
- * Every ASCE/SEI 7-22 basic load combination with its value, for the record: spills label | value,
- * one row per combination (each "or" alternative and each sign of W and E its own row), in the
- * standard's order. Always 25 rows; ASD has 24 and leaves the last row blank. Labels read
- * "section (number) combination", e.g. "2.3.1 (2) 1.2D + 1.6L + 0.5Lr". Same arguments as COMBINE
- * (extreme is accepted and ignored). Combination factors recalled from memory: verify.
+ * Every load combination with its value, for the record: spills label | value, one row per
+ * combination (each "or" alternative and each sign of W and E its own row), in order. Built-in
+ * ASCE/SEI 7-22 labels read "section (number) combination", e.g. "2.3.1 (2) 1.2D + 1.6L + 0.5Lr";
+ * your own combinations keep your names ("(-W)" marks a row evaluated with W reversed). Spills 25
+ * rows, or twice the rows of the combinations range below its header when that is more; unused rows
+ * are blank. Same arguments as COMBINE (extreme is accepted and ignored). Factors recalled from memory: verify.
  * @customfunction COMBOS
  * @param D Dead load effect (any consistent unit).
  * @param [L] Live load effect. Default 0.
@@ -142,17 +165,20 @@ export function combine(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?
  * @param [R] Rain load effect. Default 0.
  * @param [W] Wind load effect, taken with both signs. Default 0.
  * @param [E] Seismic load effect (Eh with Ev), taken with both signs. Default 0.
- * @param [method] "LRFD" (default) or "ASD".
+ * @param [method] "LRFD" (default), "ASD" or "service".
  * @param [extreme] Accepted for symmetry with COMBINE; every combination is listed.
  * @param [half_live] TRUE applies 0.5L in LRFD combinations 3, 4 and 6. Default FALSE.
+ * @param [combinations] Your own combinations: a range with the header row Combination | Method | D | L | Lr | S | R | W | E (see COMBINE).
  * @returns Two columns: combination label and value.
  */
-export function combos(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?: any, method?: any, extreme?: any, half_live?: any): any[][] {
-  const raw = [D, L, Lr, S, R, W, E, method, extreme, half_live];
+export function combos(D: any, L?: any, Lr?: any, S?: any, R?: any, W?: any, E?: any, method?: any, extreme?: any, half_live?: any, combinations?: any[][]): any[][] {
+  const raw = [D, L, Lr, S, R, W, E, method, extreme, half_live, combinations];
   const size = spillSize("COMBOS", raw.map(shapeOfValue))!;
   return asHostMatrix(
     runFunction(COMBINE_ARGS, raw, (a) => {
-      const rows = combinationValues(effectsOf(a), optionsOf(a)).map((c): (number | string)[] => [c.label, c.value]);
+      const r = evaluated(a);
+      if (!r.ok) return r;
+      const rows = r.value.values.map((c): (number | string)[] => [c.label, c.value]);
       return ok(padToSize(rows, size) ?? rows);
     }),
   );

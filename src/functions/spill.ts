@@ -7,6 +7,7 @@
  * One rule per spilling function id. A new spilling function adds one entry to {@link SPILL_RULES}.
  */
 
+import { COMBINATION_TABLE_MAX_ROWS } from "../engine/loads/combination-sets";
 import { COMBINATION_ROWS_MAX } from "../engine/loads/combinations";
 
 /** Most load rows accepted by the beam functions. */
@@ -91,9 +92,16 @@ export function diagramSize(args: readonly (ArgShape | undefined)[]): SpillSize 
   return { rows: diagramRowBound(loadRows, supportRows, diagramStationsForSize(args[3])), cols: 3 };
 }
 
-/** COMBOS(D, ...): label | value, one row per combination of the longer method's list (ASD pads with ""). */
-export function combosSize(): SpillSize {
-  return { rows: COMBINATION_ROWS_MAX, cols: 2 };
+/**
+ * COMBOS(D, ..., [combinations]): label | value. Without a combinations range, the longest
+ * built-in list (25, LRFD; ASD and service pad with ""). With one, also room for every row below
+ * its header with W or E reversed (at most 2 each: a row may not hold both W and E):
+ * max(25, 2 x (rows - 1)).
+ */
+export function combosSize(args: readonly (ArgShape | undefined)[] = []): SpillSize {
+  const table = args[10];
+  const dataRows = table === undefined ? 0 : Math.min(Math.max(table.rows - 1, 0), COMBINATION_TABLE_MAX_ROWS);
+  return { rows: Math.max(COMBINATION_ROWS_MAX, 2 * dataRows), cols: 2 };
 }
 
 /** Spill rules by function id (without the namespace). */

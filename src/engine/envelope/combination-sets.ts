@@ -4,15 +4,11 @@
  * optional Combinations table) are passed to the envelope the same way.
  */
 import { fail, ok, type Result } from "../errors";
-import { combinationsOf, LOAD_CASES, type CombinationOptions, type LoadCase } from "../loads/combinations";
+import { builtInSet, LOAD_CASES, type CombinationOptions } from "../loads/combinations";
+import { expandedRows, factorOf, type CombinationSet, type FactoredCombination } from "../loads/combination-sets";
+import type { LoadCase } from "../loads/combination-sets";
 
-/** One load combination: a label for the record and a factor per load case (missing = 0). */
-export interface FactoredCombination {
-  /** How a report names it, e.g. "2.3.1 (2) 1.2D + 1.6L + 0.5Lr". */
-  readonly label: string;
-  /** Load factor of each case (dimensionless); a missing case has factor 0. */
-  readonly factors: Readonly<Partial<Record<LoadCase, number>>>;
-}
+export { factorOf, type FactoredCombination } from "../loads/combination-sets";
 
 /**
  * The built-in ASCE/SEI 7-22 combinations of a method (Sec. 2.3.1/2.3.6 for LRFD, 2.4.1/2.4.5
@@ -21,16 +17,17 @@ export interface FactoredCombination {
  * @param options - method (LRFD or ASD) and the permitted 0.5L of LRFD combinations 3, 4 and 6
  */
 export function builtInCombinations(options: CombinationOptions): FactoredCombination[] {
-  return combinationsOf(options).map((c) => {
-    const factors: Partial<Record<LoadCase, number>> = {};
-    for (const t of c.terms) factors[t.load] = (factors[t.load] ?? 0) + t.factor;
-    return { label: c.label, factors };
-  });
+  return combinationsOfSet(builtInSet(options.method, options.halfLive));
 }
 
-/** Factor of a case in a combination (0 when missing). */
-export function factorOf(combination: FactoredCombination, load: LoadCase): number {
-  return combination.factors[load] ?? 0;
+/**
+ * The combinations of any set (built-in, service, or a firm's Combinations table parsed by
+ * parseCombinationTable) as the envelope takes them: every row, and each row holding W or E also
+ * with it reversed unless the set lists that row already (expandedRows in loads/combination-sets.ts).
+ * @param set - the combination set
+ */
+export function combinationsOfSet(set: CombinationSet): FactoredCombination[] {
+  return expandedRows(set).map((r) => ({ label: r.label, factors: r.factors }));
 }
 
 /**

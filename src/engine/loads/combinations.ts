@@ -16,21 +16,25 @@
  */
 import { fail, ok, type Result } from "../errors";
 import { finite, normaliseKey } from "./checks";
+import {
+  combinationSetValues,
+  expandedRows,
+  freezeSet,
+  governingIndex,
+  LOAD_CASES,
+  SERVICE_SET,
+  type CombinationMethod,
+  type CombinationRow,
+  type CombinationSet,
+  type ExtremeKind,
+  type LoadCase,
+  type LoadEffects,
+} from "./combination-sets";
 
-/** The load cases of the basic combinations. */
-export type LoadCase = "D" | "L" | "Lr" | "S" | "R" | "W" | "E";
-
-/** The load cases in argument order of COMBINE and COMBOS. */
-export const LOAD_CASES: readonly LoadCase[] = ["D", "L", "Lr", "S", "R", "W", "E"];
-
-/** One load effect per case (missing cases are 0 for the caller to fill). */
-export type LoadEffects = Readonly<Record<LoadCase, number>>;
+export { LOAD_CASES, type ExtremeKind, type LoadCase, type LoadEffects } from "./combination-sets";
 
 /** Strength design (Sec. 2.3) or allowable stress design (Sec. 2.4). */
 export type DesignMethod = "LRFD" | "ASD";
-
-/** Which end of the range of combined values governs. */
-export type ExtremeKind = "max" | "min";
 
 export const DESIGN_METHODS: readonly DesignMethod[] = ["LRFD", "ASD"];
 export const EXTREME_KINDS: readonly ExtremeKind[] = ["max", "min"];
@@ -174,27 +178,44 @@ function allowableStressCombinations(): Combination[] {
   ];
 }
 
-/** A combination list with each row's factors laid out in LOAD_CASES order, for fast evaluation. */
-interface CompiledList {
-  readonly rows: readonly Combination[];
-  /** rows.length x 7 factors, row-major. */
-  readonly factors: Float64Array;
+/** A combination of the standard as a row of a combination set: its label, section and factors. */
+function rowOf(c: Combination): CombinationRow {
+  const factors: Partial<Record<LoadCase, number>> = {};
+  for (const t of c.terms) factors[t.load] = (factors[t.load] ?? 0) + t.factor;
+  return { label: c.label, source: `ASCE/SEI 7-22 Sec. ${c.section}, combination ${c.number} (recalled from memory; verify against the standard)`, factors };
 }
 
-function compile(rows: Combination[]): CompiledList {
-  const factors = new Float64Array(rows.length * LOAD_CASES.length);
-  rows.forEach((row, r) => {
-    for (const t of row.terms) factors[r * LOAD_CASES.length + LOAD_CASES.indexOf(t.load)]! += t.factor;
-  });
-  return { rows: Object.freeze(rows), factors };
+/** The standard's combinations of a method and the same as a combination set (rows in the same order). */
+interface BuiltIn {
+  readonly combinations: readonly Combination[];
+  readonly set: CombinationSet;
 }
 
-const STRENGTH = { plain: compile(strengthCombinations(false)), halfLive: compile(strengthCombinations(true)) };
-const ALLOWABLE = compile(allowableStressCombinations());
+function builtIn(name: string, method: DesignMethod, combinations: Combination[]): BuiltIn {
+  return { combinations: Object.freeze(combinations), set: freezeSet({ name, method, rows: combinations.map(rowOf) }) };
+}
 
-function compiledOf(options: CombinationOptions): CompiledList {
+const STRENGTH = {
+  plain: builtIn("ASCE/SEI 7-22 LRFD", "LRFD", strengthCombinations(false)),
+  halfLive: builtIn("ASCE/SEI 7-22 LRFD, 0.5L", "LRFD", strengthCombinations(true)),
+};
+const ALLOWABLE = builtIn("ASCE/SEI 7-22 ASD", "ASD", allowableStressCombinations());
+
+function builtInOf(options: CombinationOptions): BuiltIn {
   if (options.method === "ASD") return ALLOWABLE;
   return options.halfLive ? STRENGTH.halfLive : STRENGTH.plain;
+}
+
+/**
+ * A built-in combination set as data (label, source and one factor per case each): ASCE/SEI 7-22
+ * LRFD (Sec. 2.3.1, 2.3.6) or ASD (Sec. 2.4.1, 2.4.5), recalled from memory, one row per "or"
+ * alternative and per sign of W and E, in the standard's order; or the service set (common
+ * practice, see SERVICE_ROWS in combination-sets.ts).
+ * @param method - LRFD, ASD or service
+ * @param halfLive - LRFD only: the 0.5L permitted in combinations 3, 4 and 6 (ignored otherwise)
+ */
+export function builtInSet(method: CombinationMethod, halfLive = false): CombinationSet {
+  return method === "service" ? SERVICE_SET : builtInOf({ method, halfLive }).set;
 }
 
 /**
@@ -202,38 +223,34 @@ function compiledOf(options: CombinationOptions): CompiledList {
  * values: one row per "or" alternative and per sign of W and E).
  */
 export function combinationsOf(options: CombinationOptions): readonly Combination[] {
-  return compiledOf(options).rows;
+  return builtInOf(options).combinations;
 }
 
-/** The largest number of rows of any method: the fixed height of a spilled list of combinations. */
-export const COMBINATION_ROWS_MAX = Math.max(STRENGTH.plain.rows.length, ALLOWABLE.rows.length);
+/** The largest number of rows of any built-in set: the spill height of COMBOS without a combinations range. */
+export const COMBINATION_ROWS_MAX = Math.max(
+  expandedRows(STRENGTH.plain.set).length,
+  expandedRows(STRENGTH.halfLive.set).length,
+  expandedRows(ALLOWABLE.set).length,
+  expandedRows(SERVICE_SET).length,
+);
 
-function effectVector(effects: LoadEffects): number[] {
-  return [effects.D, effects.L, effects.Lr, effects.S, effects.R, effects.W, effects.E];
-}
-
-/** Sum of factor x effect over the 7 cases, always in LOAD_CASES order (so every path rounds alike). */
-function dot(factors: ArrayLike<number>, offset: number, x: readonly number[]): number {
-  let v = 0;
-  for (let j = 0; j < 7; j++) v += factors[offset + j]! * x[j]!;
-  return v;
-}
-
-/** Value of one combination: sum of factor x load effect. */
+/** Value of one combination: sum of factor x load effect, in LOAD_CASES order as the evaluator sums. */
 export function combinationValue(combination: Combination, effects: LoadEffects): number {
-  const factors = LOAD_CASES.map((load) => combination.terms.reduce((f, t) => (t.load === load ? f + t.factor : f), 0));
-  return dot(factors, 0, effectVector(effects));
+  const row = rowOf(combination);
+  return LOAD_CASES.reduce((v, c) => v + (row.factors[c] ?? 0) * effects[c], 0);
 }
 
 /**
- * Every combination of the method with its value, in the standard's order.
+ * Every combination of the method with its value, in the standard's order (the evaluator of
+ * combination-sets.ts on the built-in set; the built-in sets list both signs of W and E, so the
+ * rows are those of {@link combinationsOf}).
  * @param effects - load effect of each case, consistent units, sign as computed (W and E are applied with both signs)
  * @param options - method and the 0.5L option
  */
 export function combinationValues(effects: LoadEffects, options: CombinationOptions): CombinationValue[] {
-  const { rows, factors } = compiledOf(options);
-  const x = effectVector(effects);
-  return rows.map((c, r) => ({ ...c, value: dot(factors, r * 7, x) }));
+  const { combinations, set } = builtInOf(options);
+  const values = combinationSetValues(set, effects);
+  return combinations.map((c, r) => ({ ...c, value: values[r]!.value }));
 }
 
 /**
@@ -241,19 +258,9 @@ export function combinationValues(effects: LoadEffects, options: CombinationOpti
  * Ties go to the first combination in the standard's order.
  */
 export function governingCombination(effects: LoadEffects, options: CombinationOptions, extreme: ExtremeKind): CombinationValue {
-  const { rows, factors } = compiledOf(options);
-  const x = effectVector(effects);
-  const sign = extreme === "max" ? 1 : -1;
-  let best = 0;
-  let bestValue = dot(factors, 0, x);
-  for (let r = 1; r < rows.length; r++) {
-    const v = dot(factors, r * 7, x);
-    if (sign * v > sign * bestValue) {
-      best = r;
-      bestValue = v;
-    }
-  }
-  return { ...rows[best]!, value: bestValue };
+  const { combinations, set } = builtInOf(options);
+  const g = governingIndex(set, effects, extreme);
+  return { ...combinations[g.index]!, value: g.value };
 }
 
 /** Check that every load effect is a finite number (error names the case's argument). */

@@ -2,6 +2,7 @@
 export * from "./units";
 export { tributaryWidth, lineLoad } from "./tributary";
 export * from "./combinations";
+export * from "./combination-sets";
 export * from "./live-reduction";
 export * from "./kll";
 export * from "./roof-live-reduction";
