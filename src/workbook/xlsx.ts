@@ -12,7 +12,8 @@
  * over the spilled area (`t="array"`) with the values in the other cells: ExcelJS cannot write
  * Excel's dynamic-array marker, and an array formula computes the same cells.
  */
-import { existsSync } from "node:fs";
+import { existsSync, statSync } from "node:fs";
+import { readFile } from "node:fs/promises";
 import { resolve } from "node:path";
 import ExcelJS from "exceljs";
 import { DetailedCellError, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
@@ -165,19 +166,60 @@ export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkboo
   return { ...(path ? { path } : {}), excel, sheets, formulas, tables };
 }
 
+/** The start of a zip file (a local file header), and of an empty zip (its end record). */
+const ZIP_MAGIC = [Buffer.from("PK\x03\x04", "latin1"), Buffer.from("PK\x05\x06", "latin1")];
+/** The start of an OLE compound file: an encrypted (password-protected) workbook, or an old .xls. */
+const OLE_MAGIC = Buffer.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1]);
+
+/** A stream name of a compound file as stored in its directory (UTF-16LE). */
+function utf16(text: string): Buffer {
+  return Buffer.from(text, "utf16le");
+}
+
+/**
+ * Why the bytes of a file are not an .xlsx workbook ExcelJS can read, or undefined when they look
+ * like one (a zip holding `xl/workbook.xml`). Only the bytes are looked at, nothing is unpacked:
+ * the names of a zip's parts are stored uncompressed in its central directory.
+ */
+export function notAWorkbook(bytes: Buffer): string | undefined {
+  if (bytes.length === 0) return "not an .xlsx workbook (the file is empty)";
+  if (bytes.subarray(0, OLE_MAGIC.length).equals(OLE_MAGIC)) {
+    if (bytes.includes(utf16("EncryptionInfo")) || bytes.includes(utf16("EncryptedPackage"))) {
+      return "encrypted workbook (it has a password to open: remove the password in Excel, File > Info > Protect Workbook, and save it again)";
+    }
+    return "not an .xlsx workbook (an older binary file, such as an .xls workbook: open it in Excel and save it as .xlsx)";
+  }
+  if (!ZIP_MAGIC.some((m) => bytes.subarray(0, m.length).equals(m))) return "not an .xlsx workbook (not a zip file)";
+  if (!bytes.includes(Buffer.from("xl/workbook.xml", "latin1"))) {
+    const what = bytes.includes(Buffer.from("word/document.xml", "latin1")) ? "a Word document" : bytes.includes(Buffer.from("ppt/presentation.xml", "latin1")) ? "a PowerPoint file" : "a zip file without a workbook in it";
+    return `not an .xlsx workbook (${what})`;
+  }
+  return undefined;
+}
+
 /**
  * Read an .xlsx file.
  * @param path - the file.
- * @throws Error with a plain message when the file is missing or not an .xlsx workbook.
+ * @throws Error with a plain message when the file is missing, not an .xlsx workbook (`<file>: not
+ * an .xlsx workbook (...)`) or an encrypted one (`<file>: encrypted workbook (...)`).
  */
 export async function readXlsx(path: string): Promise<XlsxWorkbook> {
   const full = resolve(path);
   if (!existsSync(full)) throw new Error(`${path}: no such file.`);
+  let bytes: Buffer;
+  try {
+    if (statSync(full).isDirectory()) throw new Error("it is a folder");
+    bytes = await readFile(full);
+  } catch (e) {
+    throw new Error(`${path}: cannot be read (${e instanceof Error ? e.message : String(e)}).`);
+  }
+  const why = notAWorkbook(bytes);
+  if (why !== undefined) throw new Error(`${path}: ${why}.`);
   const excel = new ExcelJS.Workbook();
   try {
-    await excel.xlsx.readFile(full);
+    await excel.xlsx.load(bytes as unknown as ArrayBuffer);
   } catch (e) {
-    throw new Error(`${path}: not a readable .xlsx workbook (${e instanceof Error ? e.message : String(e)}).`);
+    throw new Error(`${path}: not an .xlsx workbook that can be read (a damaged file? ${e instanceof Error ? e.message : String(e)}).`);
   }
   return fromExcelJs(excel, full);
 }
