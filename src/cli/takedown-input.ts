@@ -121,7 +121,7 @@ function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string
  */
 export async function takedownOfFile(input: string, run: TakedownRun, membersOption = "members"): Promise<TakedownFileResult> {
   const workbook = await readXlsx(input);
-  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })) });
+  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names });
   const zones = tableName(workbook, run.zones, "Zones");
   const members = tableName(workbook, run.members, "Members");
   if (zones === undefined || members === undefined) {

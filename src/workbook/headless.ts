@@ -14,7 +14,7 @@ import { join, resolve } from "node:path";
 import { compileFunction } from "node:vm";
 import { HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
 import { createCustomFunctionsShim } from "./headless-shim";
-import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
+import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, toEngineFormula, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
 
 export * from "./headless-plugin";
 
@@ -129,6 +129,36 @@ export interface HeadlessOptions {
   readonly sheets?: Readonly<Record<string, RawCellContent[][]>>;
   /** Extra HyperFormula configuration. */
   readonly config?: Partial<ConfigParams>;
+  /** Workbook names to define (a file's defined names): name -> what it refers to ("Sheet1!$B$1"). */
+  readonly names?: readonly DefinedName[];
+}
+
+/** A workbook-level defined name: `Span` referring to `Sheet1!$B$1`. */
+export interface DefinedName {
+  readonly name: string;
+  /** What it refers to, in the engine's spelling, without "=". */
+  readonly refersTo: string;
+}
+
+/**
+ * Define workbook names in an engine; a name the engine cannot take (one that reads as a cell
+ * address, say) is left out, so formulas using it show #NAME? and are listed by the caller.
+ * @param hf - the engine
+ * @param names - the names
+ * @returns the names left out
+ */
+export function defineNames(hf: HyperFormula, names: readonly DefinedName[]): string[] {
+  const skipped: string[] = [];
+  for (const n of names) {
+    const expression = `=${toEngineFormula(n.refersTo)}`;
+    try {
+      if (hf.isItPossibleToAddNamedExpression(n.name, expression)) hf.addNamedExpression(n.name, expression);
+      else skipped.push(n.name);
+    } catch {
+      skipped.push(n.name);
+    }
+  }
+  return skipped;
 }
 
 /**
@@ -144,6 +174,7 @@ export async function createHeadless(options: HeadlessOptions = {}): Promise<Hea
   const config = { ...HEADLESS_CONFIG, ...options.config };
   const hf = Object.keys(sheets).length > 0 ? HyperFormula.buildFromSheets(sheets, config) : HyperFormula.buildEmpty(config);
   defineBooleans(hf);
+  if (options.names && options.names.length > 0) defineNames(hf, options.names);
   return { hf, bundle, functionIds: bundle.metadata.map((f) => `${NAMESPACE}.${f.id.toUpperCase()}`) };
 }
 

@@ -16,9 +16,9 @@ import { existsSync, statSync } from "node:fs";
 import { readFile } from "node:fs/promises";
 import { resolve } from "node:path";
 import ExcelJS from "exceljs";
-import { DetailedCellError, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
+import { DetailedCellError, ErrorType, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
 import { cellAddress, parseCell, sheetRef } from "./a1";
-import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
+import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type DefinedName, type Headless, type HeadlessOptions } from "./headless";
 
 /** A formula cell as found in the file. Rows and columns are 0-based. */
 export interface XlsxFormulaCell {
@@ -29,6 +29,8 @@ export interface XlsxFormulaCell {
   readonly formula: string;
   /** For an array formula (Excel's spilled results are stored this way), its area, e.g. "F2:H2". */
   readonly arrayRef?: string;
+  /** The value the file holds for it (its last result), if any. */
+  readonly cached?: Cached;
 }
 
 /** An Excel table (ListObject) of the workbook. */
@@ -55,7 +57,12 @@ export interface XlsxWorkbook {
   readonly sheets: readonly XlsxSheet[];
   readonly formulas: readonly XlsxFormulaCell[];
   readonly tables: readonly XlsxTable[];
+  /** The workbook's defined names that refer to one range (print areas and the like left out). */
+  readonly names: readonly DefinedName[];
 }
+
+/** A value cached in a file for a formula cell. */
+type Cached = number | string | boolean | { error: string } | undefined;
 
 /** Excel's day 0 (1899-12-30) in ms since the Unix epoch: dates become serial day numbers. */
 const EXCEL_EPOCH_MS = Date.UTC(1899, 11, 30);
@@ -119,9 +126,10 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
       const model = cell as unknown as CellModelish;
       if (cell.type === ExcelJS.ValueType.Formula) {
         const formula = String(cell.formula ?? "");
-        const value = cell.value as { shareType?: string; ref?: string };
+        const value = cell.value as { shareType?: string; ref?: string; result?: unknown };
         const arrayRef = value.shareType === "array" && value.ref ? value.ref : undefined;
-        formulas.push({ sheet: ws.name, row: r, col: c, formula, ...(arrayRef ? { arrayRef } : {}) });
+        const cached = cachedInFile(value.result);
+        formulas.push({ sheet: ws.name, row: r, col: c, formula, ...(arrayRef ? { arrayRef } : {}), ...(cached !== undefined ? { cached } : {}) });
         setAt(rows, r, c, "=" + toEngineFormula(formula));
       } else if (cell.type !== ExcelJS.ValueType.Merge) {
         setAt(rows, r, c, plainContent(model));
@@ -134,6 +142,29 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
     for (const { row, col } of areaCells(f.arrayRef)) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
   }
   return { sheet: { name: ws.name, rows }, formulas };
+}
+
+/** A formula's last result as the file holds it (dates as serial numbers). */
+function cachedInFile(result: unknown): Cached {
+  if (typeof result === "number" || typeof result === "string" || typeof result === "boolean") return result;
+  if (result instanceof Date) return (result.getTime() - EXCEL_EPOCH_MS) / MS_PER_DAY;
+  if (typeof result === "object" && result !== null && typeof (result as { error?: unknown }).error === "string") return { error: (result as { error: string }).error };
+  return undefined;
+}
+
+/** The defined names of a workbook that refer to a single range (not print areas, filters or unions). */
+function definedNamesOf(excel: ExcelJS.Workbook): DefinedName[] {
+  const model = (excel.definedNames as unknown as { model?: { name?: string; ranges?: string[] }[] }).model ?? [];
+  const seen = new Set<string>();
+  const out: DefinedName[] = [];
+  for (const n of model) {
+    const name = String(n.name ?? "");
+    const key = name.toUpperCase();
+    if (name === "" || key.startsWith("_XLNM.") || seen.has(key) || n.ranges?.length !== 1) continue;
+    seen.add(key);
+    out.push({ name, refersTo: n.ranges[0]! });
+  }
+  return out;
 }
 
 function isFormula(content: RawCellContent | undefined): boolean {
@@ -163,7 +194,7 @@ export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkboo
     formulas.push(...read.formulas);
     tables.push(...readTables(ws));
   });
-  return { ...(path ? { path } : {}), excel, sheets, formulas, tables };
+  return { ...(path ? { path } : {}), excel, sheets, formulas, tables, names: definedNamesOf(excel) };
 }
 
 /** The start of a zip file (a local file header), and of an empty zip (its end record). */
@@ -235,7 +266,7 @@ export function engineSheets(wb: XlsxWorkbook): Record<string, RawCellContent[][
  * @param options - headless options (bundle folder, configuration).
  */
 export async function evaluateWorkbook(wb: XlsxWorkbook, options: Omit<HeadlessOptions, "sheets"> = {}): Promise<Headless> {
-  return createHeadless({ ...options, sheets: engineSheets(wb) });
+  return createHeadless({ ...options, sheets: engineSheets(wb), names: wb.names });
 }
 
 /** What went wrong in one formula cell. */
@@ -243,8 +274,13 @@ export interface CellProblem {
   readonly sheet: string;
   /** A1 address on the sheet. */
   readonly address: string;
-  /** unknownFunction = #NAME?; cycle = circular reference; error = any other error value. */
-  readonly kind: "unknownFunction" | "cycle" | "error";
+  /**
+   * unknownFunction = #NAME?; cycle = circular reference; error = any other error value;
+   * notEvaluated = the formula cannot be evaluated headless (it does not parse here, or calls a
+   * function or name the engine lacks): the file keeps the cell as it was, cached value included,
+   * and formulas that use it read that cached value.
+   */
+  readonly kind: "unknownFunction" | "cycle" | "error" | "notEvaluated";
   /** Excel error text, e.g. "#VALUE!". */
   readonly code: string;
   readonly message: string;
@@ -280,7 +316,6 @@ function arrayExtent(hf: HyperFormula, sheet: number, row: number, col: number):
   return { rows, cols };
 }
 
-type Cached = number | string | boolean | { error: string } | undefined;
 
 /** A computed value as cached in a file. */
 function cachedOf(v: HfCellValue): Cached {
@@ -296,23 +331,93 @@ function plainOf(v: HfCellValue): ExcelJS.CellValue {
 }
 
 /**
+ * Why a formula cell cannot be evaluated headless, or undefined when it can: it does not parse
+ * here, or it calls a function or uses a name the engine does not have (errors passed on from
+ * another cell are that cell's).
+ */
+function unevaluable(hf: HyperFormula, f: XlsxFormulaCell, value: HfCellValue): string | undefined {
+  if (!(value instanceof DetailedCellError)) return undefined;
+  const here = `${f.sheet}!${cellAddress(f.row, f.col)}`;
+  if (value.address && value.address.replace(/'/g, "") !== here.replace(/'/g, "")) return undefined;
+  if (value.type === ErrorType.ERROR) {
+    // A parse error reaches the cells that use it without an origin: only the cell itself fails to parse.
+    return hf.validateFormula(`=${toEngineFormula(f.formula)}`) ? undefined : `the formula cannot be read here (${value.message.replace(/\.$/, "")})`;
+  }
+  if (value.type !== ErrorType.NAME) return undefined;
+  const fn = /Function name (\S+) not recognized/.exec(value.message);
+  if (fn) return `function ${fn[1]} is not available headless`;
+  const name = /Named expression (\S+) not recognized/.exec(value.message);
+  if (name) return `name ${name[1]} is not defined in the workbook`;
+  return undefined;
+}
+
+/** A cached value for a message: `the cached value 40`, `the cached text "x"`, `no cached value`. */
+function describeCached(c: Cached): string {
+  if (c === undefined) return "its formula (the file has no cached value for it)";
+  if (typeof c === "object") return `its formula and cached value ${c.error}`;
+  return `its formula and cached value ${typeof c === "string" ? JSON.stringify(c) : String(c).toUpperCase()}`;
+}
+
+/** A cached value as engine content (text kept as text). */
+function cachedContent(c: Cached): RawCellContent {
+  if (c === undefined) return null;
+  if (typeof c === "object") return c.error;
+  if (typeof c === "string") return c === "" ? null : `'${c}`;
+  return c;
+}
+
+/**
+ * Find the formula cells that cannot be evaluated headless and put their cached values in the
+ * engine in their place (for an array formula, its whole area as the file holds it), so the
+ * cells that use them compute from what Excel last computed rather than from an error.
+ * @returns each such cell and why
+ */
+function keepUnevaluable(wb: XlsxWorkbook, hf: HyperFormula): Map<XlsxFormulaCell, string> {
+  const kept = new Map<XlsxFormulaCell, string>();
+  for (const f of wb.formulas) {
+    const why = unevaluable(hf, f, hf.getCellValue({ sheet: hf.getSheetId(f.sheet)!, row: f.row, col: f.col }));
+    if (why !== undefined) kept.set(f, why);
+  }
+  if (kept.size === 0) return kept;
+  hf.batch(() => {
+    for (const f of kept.keys()) {
+      const sheet = hf.getSheetId(f.sheet)!;
+      const ws = wb.excel.getWorksheet(f.sheet)!;
+      for (const { row, col } of f.arrayRef ? areaCells(f.arrayRef) : [{ row: f.row, col: f.col }]) {
+        const content = row === f.row && col === f.col ? cachedContent(f.cached) : plainContent(ws.getCell(row + 1, col + 1) as unknown as CellModelish);
+        hf.setCellContents({ sheet, row, col }, [[content]]);
+      }
+    }
+  });
+  return kept;
+}
+
+/**
  * Evaluate every formula and cache the results in the workbook's ExcelJS model: each formula
  * cell becomes `{ formula, result }` (LOADPATH calls in the file spelling), spilled results become
  * array formulas over their area with the values in the other cells.
  * @param wb - the workbook read by {@link readXlsx}.
  * @param headless - an engine built from `wb` by {@link evaluateWorkbook}.
- * @returns counts and every formula cell whose value is an error.
+ * A formula that cannot be evaluated headless (see {@link CellProblem}) is left as the file has it.
+ * @returns counts and every formula cell whose value is an error or that was not evaluated.
  */
 export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummary {
   const hf = headless.hf;
   const problems: CellProblem[] = [];
   let loadpathCount = 0;
+  const kept = keepUnevaluable(wb, hf);
   for (const f of wb.formulas) {
     const sheetId = hf.getSheetId(f.sheet)!;
     const ws = wb.excel.getWorksheet(f.sheet)!;
     const addr = { sheet: sheetId, row: f.row, col: f.col };
-    const value = hf.getCellValue(addr);
     if (callsLoadpath(f.formula)) loadpathCount++;
+    const why = kept.get(f);
+    if (why !== undefined) {
+      // Left as the file has it (formula and cached value); its dependents read the cached value.
+      problems.push({ sheet: f.sheet, address: cellAddress(f.row, f.col), kind: "notEvaluated", code: "", message: `${why}; not recalculated, the cell keeps ${describeCached(f.cached)}.`, loadpath: callsLoadpath(f.formula) });
+      continue;
+    }
+    const value = hf.getCellValue(addr);
     if (value instanceof DetailedCellError) problems.push(problemOf(f, value));
     const formula = toFileFormula(f.formula);
     if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef)) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
