@@ -12,7 +12,7 @@
 import { existsSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { compileFunction } from "node:vm";
-import { HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
+import { DenseSparseChooseBasedOnThreshold, HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
 import { createCustomFunctionsShim } from "./headless-shim";
 import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, toEngineFormula, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
 
@@ -108,6 +108,10 @@ export const HEADLESS_CONFIG: Partial<ConfigParams> = {
   // Range arithmetic element by element, as Excel, LibreOffice Calc and Gnumeric evaluate the
   // arguments of SUMPRODUCT: the hand-off takedown's formulas rely on it (src/engine/native).
   useArrayArithmetic: true,
+  // A sheet is held as a grid unless almost all of its extent is blank (one stray value in
+  // XFD1048576 beside a small table): then only its filled cells are kept, or the grid of
+  // 1,048,576 x 16,384 cells would exhaust the heap. Real tables and generated sheets stay grids.
+  chooseAddressMappingPolicy: new DenseSparseChooseBasedOnThreshold(0.001),
 };
 
 /** A HyperFormula instance with the LOADPATH functions, and the bundle they came from. */

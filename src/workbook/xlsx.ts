@@ -18,7 +18,7 @@ import { resolve } from "node:path";
 import ExcelJS from "exceljs";
 import { DetailedCellError, ErrorType, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
 import { cellAddress, parseCell, sheetRef } from "./a1";
-import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type DefinedName, type Headless, type HeadlessOptions } from "./headless";
+import { callsLoadpath, createHeadless, excelErrorText, NAMESPACE, toEngineFormula, toFileFormula, type DefinedName, type Headless, type HeadlessOptions } from "./headless";
 
 /** A formula cell as found in the file. Rows and columns are 0-based. */
 export interface XlsxFormulaCell {
@@ -99,14 +99,34 @@ function plainContent(cell: CellModelish): RawCellContent {
   }
 }
 
-/** Cells of an "A1:C3" area, 0-based. */
-export function areaCells(ref: string): { row: number; col: number }[] {
-  const [a, b = a] = ref.split(":");
+/**
+ * Cells of an "A1:C3" area, 0-based, within the rows and columns that can hold anything (`last`:
+ * the sheet's last row and column with content): an area a file declares over a whole sheet
+ * ("A1:XFD1048576") visits only the sheet's real extent, never a billion cells.
+ * @param ref - the area
+ * @param last - 0-based last row and column of the sheet's content (default: no bound)
+ */
+export function areaCells(ref: string, last: { row: number; col: number } = { row: Number.POSITIVE_INFINITY, col: Number.POSITIVE_INFINITY }): { row: number; col: number }[] {
+  const [a, b = a] = ref.replace(/\$/g, "").split(":");
   const p = parseCell(a!);
   const q = parseCell(b!);
   const out: { row: number; col: number }[] = [];
-  for (let r = Math.min(p.row, q.row); r <= Math.max(p.row, q.row); r++) for (let c = Math.min(p.col, q.col); c <= Math.max(p.col, q.col); c++) out.push({ row: r, col: c });
+  const bottom = Math.min(Math.max(p.row, q.row), last.row);
+  const right = Math.min(Math.max(p.col, q.col), last.col);
+  for (let r = Math.min(p.row, q.row); r <= bottom; r++) for (let c = Math.min(p.col, q.col); c <= right; c++) out.push({ row: r, col: c });
   return out;
+}
+
+const lastCells = new WeakMap<ExcelJS.Worksheet, { row: number; col: number }>();
+
+/** 0-based last row and column of a worksheet's content as read (ExcelJS's extent, worked out once per sheet). */
+function lastCell(ws: ExcelJS.Worksheet): { row: number; col: number } {
+  let last = lastCells.get(ws);
+  if (!last) {
+    last = { row: ws.rowCount - 1, col: ws.columnCount - 1 };
+    lastCells.set(ws, last);
+  }
+  return last;
 }
 
 function setAt(rows: RawCellContent[][], row: number, col: number, content: RawCellContent): void {
@@ -139,7 +159,7 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
   // The other cells of an array formula hold its last results: clear them, the engine recomputes.
   for (const f of formulas) {
     if (!f.arrayRef) continue;
-    for (const { row, col } of areaCells(f.arrayRef)) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
+    for (const { row, col } of areaCells(f.arrayRef, lastCell(ws))) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
   }
   return { sheet: { name: ws.name, rows }, formulas };
 }
@@ -345,7 +365,8 @@ function unevaluable(hf: HyperFormula, f: XlsxFormulaCell, value: HfCellValue): 
   }
   if (value.type !== ErrorType.NAME) return undefined;
   const fn = /Function name (\S+) not recognized/.exec(value.message);
-  if (fn) return `function ${fn[1]} is not available headless`;
+  // A LOADPATH function that does not exist is a mistake in the formula (Excel shows #NAME? too).
+  if (fn) return fn[1]!.toUpperCase().startsWith(`${NAMESPACE}.`) ? undefined : `function ${fn[1]} is not available headless`;
   const name = /Named expression (\S+) not recognized/.exec(value.message);
   if (name) return `name ${name[1]} is not defined in the workbook`;
   return undefined;
@@ -383,7 +404,7 @@ function keepUnevaluable(wb: XlsxWorkbook, hf: HyperFormula): Map<XlsxFormulaCel
     for (const f of kept.keys()) {
       const sheet = hf.getSheetId(f.sheet)!;
       const ws = wb.excel.getWorksheet(f.sheet)!;
-      for (const { row, col } of f.arrayRef ? areaCells(f.arrayRef) : [{ row: f.row, col: f.col }]) {
+      for (const { row, col } of f.arrayRef ? areaCells(f.arrayRef, lastCell(ws)) : [{ row: f.row, col: f.col }]) {
         const content = row === f.row && col === f.col ? cachedContent(f.cached) : plainContent(ws.getCell(row + 1, col + 1) as unknown as CellModelish);
         hf.setCellContents({ sheet, row, col }, [[content]]);
       }
@@ -420,7 +441,7 @@ export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummar
     const value = hf.getCellValue(addr);
     if (value instanceof DetailedCellError) problems.push(problemOf(f, value));
     const formula = toFileFormula(f.formula);
-    if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef)) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
+    if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef, lastCell(ws))) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
     const cell = ws.getCell(f.row + 1, f.col + 1);
     if (hf.getCellType(addr) === "ARRAYFORMULA") {
       const size = arrayExtent(hf, sheetId, f.row, f.col);
