@@ -6,6 +6,7 @@
  */
 import type { ParseArgsConfig } from "node:util";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
+import { tableRowCount, takedownMemoryProblem } from "../workbook/size-limits";
 import { buildTakedown } from "../workbook/takedown-build";
 import type { ColumnMapping, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
 import { engineSheets, readXlsx, type XlsxWorkbook } from "../workbook/xlsx";
@@ -127,6 +128,8 @@ export async function takedownOfFile(input: string, run: TakedownRun, membersOpt
   if (zones === undefined || members === undefined) {
     throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : membersOption}.`);
   }
+  const tooLarge = takedownMemoryProblem(await tableRowCount(port, members));
+  if (tooLarge !== undefined) throw new Error(`${input}: ${tooLarge}`);
   const loads = tableName(workbook, run.loads, "Loads");
   const options: TakedownOptions = {
     zones,

@@ -4,16 +4,20 @@
  * gives the same result as without it (the reference is the same workbook without the stray
  * value). A table larger than the cell limit stops before anything is allocated, with a message
  * naming the limit and how to raise it (LOADPATH_MAX_CELLS). An array formula whose declared area
- * is the whole sheet is recalculated without walking that area. Inputs are never changed.
+ * is the whole sheet is recalculated without walking that area. A takedown too large for the
+ * process's heap stops before building, with a message, instead of dying of heap exhaustion.
+ * Inputs are never changed. The takedown-size case runs dist/cli.js: `npm run build` first.
  */
+import { spawnSync } from "node:child_process";
 import { writeFileSync } from "node:fs";
-import { join } from "node:path";
+import { join, resolve } from "node:path";
 import ExcelJS from "exceljs";
 import { afterEach, describe, expect, it } from "vitest";
-import { makeFrame } from "../workbook/takedown-fixtures";
+import { frameOfSize, makeFrame } from "../workbook/takedown-fixtures";
 import { hashOf, runCli, scratch } from "./helpers";
 
 const dir = scratch("size");
+const ROOT = resolve(__dirname, "../..");
 
 /** A small invented frame (two levels, one bay) as Zones and Members sheets, plus `extra` cells. */
 async function frameWorkbook(path: string, extra: Record<string, Record<string, ExcelJS.CellValue>> = {}): Promise<void> {
@@ -73,6 +77,27 @@ describe("tables are read by their real extent", () => {
     expect(small.err).toMatch(/more than the 40 cells a table may have; .*LOADPATH_MAX_CELLS=80/);
     process.env.LOADPATH_MAX_CELLS = "100000";
     expect((await runCli("takedown", path)).status).toBe(0);
+  });
+});
+
+describe("a takedown larger than the heap allows", () => {
+  it("stops before building, with the member count, the memory needed and how to give it; no heap abort", async () => {
+    const path = join(dir, "frame-1000.xlsx");
+    const frame = makeFrame(frameOfSize(1000));
+    const wb = new ExcelJS.Workbook();
+    for (const [name, rows] of Object.entries(frame.sheets)) {
+      const ws = wb.addWorksheet(name);
+      for (const row of rows) ws.addRow(row);
+    }
+    await wb.xlsx.writeFile(path);
+    const before = hashOf(path);
+    // A 64 MB heap stands for a machine too small: bench/memory.bench.ts measured about 90 MB of
+    // heap in use for this frame, so without the check the process dies of heap exhaustion.
+    const r = spawnSync(process.execPath, ["--max-old-space-size=64", join(ROOT, "bin", "loadpath.js"), "takedown", path], { encoding: "utf8" });
+    expect(r.stderr).not.toMatch(/FATAL ERROR|heap out of memory|Native stack/);
+    expect(r.stderr).toMatch(new RegExp(`${frame.memberCount.toLocaleString("en-US")} members: a takedown this large needs about [\\d.]+ GB of memory, more than the [\\d.]+ GB this process may use; .*NODE_OPTIONS=--max-old-space-size=\\d+`));
+    expect(r.status).toBe(2);
+    expect(hashOf(path)).toBe(before);
   });
 });
 
