@@ -205,6 +205,7 @@ export async function exportHandoff(input: string, output: string, options: Expo
   const port = await MemoryWorkbookPort.create({
     sheets: engineSheets(wb),
     tables: wb.tables.map(({ name, sheet, ref }) => ({ name, sheet, ref })),
+    names: wb.names,
     ...(options.distDir ? { distDir: options.distDir } : {}),
   });
   const specs = options.takedowns ?? takedownsOf(wb, options.units);
