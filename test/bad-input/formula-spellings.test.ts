@@ -9,7 +9,8 @@
  *
  * A cell that cannot be evaluated headless (a structured reference, a function the engine lacks)
  * keeps its formula and cached value in the written file, is listed with its cell and why, makes
- * the exit status 1, and the cells that use it compute from its cached value.
+ * the exit status 1, and the cells that use it compute from its cached value. A table value
+ * computed from a defined name reads the same in a takedown as the number typed in.
  */
 import { existsSync } from "node:fs";
 import { join } from "node:path";
@@ -152,5 +153,41 @@ describe("formula spellings as Excel stores them (loadpath recalc)", () => {
     expect(existsSync(out)).toBe(true);
     const ws = await sheetOf(out);
     for (const c of CORPUS) if (c.gnumeric !== false) expectValue(resultOf(ws, c.cell), c.expected, `Gnumeric ${c.cell}: =${c.formula}`);
+  });
+});
+
+describe("defined names in the tables a takedown reads", () => {
+  it("a span computed from a defined name (=BaySpan) gives the same takedown as the number typed in", async () => {
+    const { makeFrame } = await import("../workbook/takedown-fixtures");
+    const frame = makeFrame({ levels: 2, bays: 1, beamsPerBay: 1 });
+    const write = async (path: string, named: boolean): Promise<void> => {
+      const wb = new ExcelJS.Workbook();
+      for (const [name, rows] of Object.entries(frame.sheets)) {
+        const ws = wb.addWorksheet(name);
+        rows.forEach((row, r) => {
+          ws.addRow(row);
+          // Spans of 30 ft: as `=BaySpan` (a name for Zones!$J$1) in one file, as 30 in the other.
+          if (named && name === "Members" && r > 0 && row[3] === 30) ws.getCell(r + 1, 4).value = { formula: "BaySpan", result: 30 } as ExcelJS.CellValue;
+        });
+      }
+      wb.getWorksheet("Zones")!.getCell("J1").value = 30;
+      if (named) wb.definedNames.add("Zones!$J$1", "BaySpan");
+      await wb.xlsx.writeFile(path);
+    };
+    const typed = join(dir, "typed.xlsx");
+    const named = join(dir, "named.xlsx");
+    await write(typed, false);
+    await write(named, true);
+    const a = await runCli("takedown", typed, "--json", join(dir, "typed.json"));
+    const b = await runCli("takedown", named, "--json", join(dir, "named.json"));
+    expect(a.status).toBe(0);
+    expect(b.err).toBe("");
+    expect(b.status).toBe(0);
+    const { readFileSync } = await import("node:fs");
+    const results = (file: string): { members: unknown; columns: Record<string, unknown> } => JSON.parse(readFileSync(join(dir, file), "utf8")) as { members: unknown; columns: Record<string, unknown> };
+    const reference = results("typed.json");
+    expect(Object.keys(reference.columns).length).toBeGreaterThan(0);
+    expect(results("named.json").members).toEqual(reference.members);
+    expect(results("named.json").columns).toEqual(reference.columns);
   });
 });
