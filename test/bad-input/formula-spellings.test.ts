@@ -17,7 +17,7 @@ import { join } from "node:path";
 import ExcelJS from "exceljs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { hasGnumeric, recalcWithGnumeric, requireInCi } from "../handoff/programs";
-import { hashOf, runCli, scratch, type Ran } from "./helpers";
+import { hashOf, runCli, scratch, type Ran } from "./reading-helpers";
 
 const dir = scratch("spellings");
 const INPUT = join(dir, "corpus.xlsx");

@@ -14,7 +14,7 @@ import { join } from "node:path";
 import JSZip from "jszip";
 import { describe, expect, it } from "vitest";
 import { readXlsx } from "../../src/workbook/xlsx";
-import { hashOf, runCli, scratch } from "./helpers";
+import { hashOf, runCli, scratch } from "./reading-helpers";
 
 const dir = scratch("not-a-workbook");
 

@@ -14,7 +14,7 @@ import { join, resolve } from "node:path";
 import ExcelJS from "exceljs";
 import { afterEach, describe, expect, it } from "vitest";
 import { frameOfSize, makeFrame } from "../workbook/takedown-fixtures";
-import { hashOf, runCli, scratch } from "./helpers";
+import { hashOf, runCli, scratch } from "./reading-helpers";
 
 const dir = scratch("size");
 const ROOT = resolve(__dirname, "../..");

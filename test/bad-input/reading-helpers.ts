@@ -1,6 +1,7 @@
 /**
- * What the bad-input tests share: the command run in-process (`main` with lines collected), a
- * file's hash to show it is unchanged, and a scratch folder.
+ * What the reading bad-input tests share (not-a-workbook, formula-spellings, size): the command
+ * run in-process (`main` with lines collected), a file's hash to show it is unchanged, and a
+ * scratch folder.
  */
 import { createHash } from "node:crypto";
 import { mkdtempSync, readFileSync } from "node:fs";
