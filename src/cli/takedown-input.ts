@@ -7,6 +7,7 @@
  */
 import type { ParseArgsConfig } from "node:util";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
+import { tableRowCount, takedownMemoryProblem } from "../workbook/size-limits";
 import { buildTakedown } from "../workbook/takedown-build";
 import type { ColumnMapping, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
 import { engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
@@ -197,12 +198,14 @@ function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string
  */
 export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
   const workbook = await readInputWorkbook(input);
-  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })) });
+  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names });
   const zones = tableName(workbook, run.zones, "Zones");
   const members = tableName(workbook, run.members, "Members");
   if (zones === undefined || members === undefined) {
     throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
   }
+  const tooLarge = takedownMemoryProblem(await tableRowCount(port, members));
+  if (tooLarge !== undefined) throw new Error(`${input}: ${tooLarge}`);
   const loads = tableName(workbook, run.loads, "Loads");
   const headerUnits = unitsShownByHeaders(workbook, [zones, members, ...(loads !== undefined ? [loads] : [])]);
   const options: TakedownOptions = {

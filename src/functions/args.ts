@@ -303,11 +303,25 @@ function scalarCell(raw: unknown, name: string): Result<CellIn> {
   return fail("badShape", `expected a single value, got a range of ${rows} x ${cols} cells.`, name);
 }
 
+/**
+ * The choices as a message lists them: each canonical value once, followed by its other spellings
+ * (those that differ by more than case): `"kip-ft" (or "US"), "kN-m" (or "SI"), "consistent"`.
+ */
+function listChoices(choices: Choices): string {
+  const byValue = new Map<string, string[]>();
+  for (const [key, value] of Object.entries(choices)) {
+    const list = byValue.get(value) ?? [];
+    if (key.toLowerCase() !== value.toLowerCase()) list.push(key);
+    byValue.set(value, list);
+  }
+  return [...byValue].map(([value, others]) => `"${value}"${others.length > 0 ? ` (or ${others.map((o) => `"${o}"`).join(", ")})` : ""}`).join(", ");
+}
+
 function matchChoice(text: string, spec: TextSpec<string> | OptionalTextSpec<string>): Result<string> {
   if (!spec.choices) return ok(text);
   const key = Object.keys(spec.choices).find((k) => k.toLowerCase() === text.toLowerCase());
   if (key !== undefined) return ok(spec.choices[key]!);
-  const listed = [...new Set(Object.values(spec.choices))].map((c) => `"${c}"`).join(", ");
+  const listed = listChoices(spec.choices);
   return fail(spec.unknownCode ?? "unknownKey", `"${text}" is not recognised; use one of ${listed}.`, spec.name);
 }
 

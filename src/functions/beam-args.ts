@@ -244,9 +244,14 @@ export const DEFLECTION_UNITS: Readonly<Record<DeflectionUnits["key"], Deflectio
   consistent: { key: "consistent", factor: 1, deflectionPerLength: 1, deflectionUnit: "length unit" },
 };
 
-/** Accepted spellings of the units key (compared case-insensitively) -> canonical key. */
+/**
+ * Accepted spellings of the units key (compared case-insensitively) -> canonical key. The load
+ * functions' vocabulary is accepted too: `US` is kip-ft and `SI` is kN-m (the same unit sets).
+ */
 export const UNITS_CHOICES: Readonly<Record<string, DeflectionUnits["key"]>> = {
   "kip-ft": "kip-ft",
+  US: "kip-ft",
   "kN-m": "kN-m",
+  SI: "kN-m",
   consistent: "consistent",
 };

@@ -214,13 +214,14 @@ export function momentAt(span: any, loads: any[][], x: any, supports?: any[][]):
 /**
  * Largest downward deflection (>= 0; 0 when the member only rises), constant E and I. Units key:
  * "kip-ft" (span ft, loads kip/ft and kip, E ksi, I in^4, result in inches), "kN-m" (m, kN/m and
- * kN, E MPa, I mm^4, result in mm) or "consistent" (one consistent set, result in its length).
+ * kN, E MPa, I mm^4, result in mm) or "consistent" (one consistent set, result in its length);
+ * "US" and "SI" are accepted for kip-ft and kN-m.
  * @customfunction DEFLECTION_MAX
  * @param span Member length (ft for kip-ft, m for kN-m).
  * @param loads A uniform line load over the whole length, or a range of loads (kind | magnitude | start | end | end magnitude, or magnitude | start | end | end magnitude).
  * @param E Modulus of elasticity (ksi for kip-ft, MPa for kN-m), e.g. 29000 ksi for steel.
  * @param I Moment of inertia (in^4 for kip-ft, mm^4 for kN-m).
- * @param units "kip-ft", "kN-m" or "consistent".
+ * @param units "kip-ft" (or "US"), "kN-m" (or "SI") or "consistent".
  * @param [supports] Range of support rows: position | type (pin, roller or fixed), or one column of pin positions. Default: pins at 0 and span.
  * @returns The largest downward deflection (in for kip-ft, mm for kN-m).
  */
@@ -239,7 +240,7 @@ export function deflectionMax(span: any, loads: any[][], E: any, I: any, units: 
  * @param loads A uniform line load over the whole length, or a range of loads (kind | magnitude | start | end | end magnitude, or magnitude | start | end | end magnitude).
  * @param E Modulus of elasticity (ksi for kip-ft, MPa for kN-m).
  * @param I Moment of inertia (in^4 for kip-ft, mm^4 for kN-m).
- * @param units "kip-ft", "kN-m" or "consistent".
+ * @param units "kip-ft" (or "US"), "kN-m" (or "SI") or "consistent".
  * @param x Position from the left end, 0 to span.
  * @param [supports] Range of support rows: position | type (pin, roller or fixed), or one column of pin positions. Default: pins at 0 and span.
  * @returns The deflection at x (in for kip-ft, mm for kN-m).
@@ -263,7 +264,7 @@ export function deflectionAt(span: any, loads: any[][], E: any, I: any, units: a
  * @param loads A uniform line load over the whole length, or a range of loads (kind | magnitude | start | end | end magnitude, or magnitude | start | end | end magnitude).
  * @param E Modulus of elasticity (ksi for kip-ft, MPa for kN-m).
  * @param ratio Deflection limit as span/ratio, e.g. 360 for L/360, 240 for L/240.
- * @param units "kip-ft", "kN-m" or "consistent".
+ * @param units "kip-ft" (or "US"), "kN-m" (or "SI") or "consistent".
  * @param [supports] Range of support rows: position | type (pin, roller or fixed), or one column of pin positions. Default: pins at 0 and span.
  * @returns The required moment of inertia (in^4 for kip-ft, mm^4 for kN-m).
  */

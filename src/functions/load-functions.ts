@@ -32,7 +32,8 @@ import { ok, type Result } from "../engine/errors";
 import { arg, asHostMatrix, asHostNumber, defineArgs, runFunction, type ArgValues } from "./args";
 import { padToSize, shapeOfValue, spillSize } from "./spill";
 
-const UNITS = { US: "US", SI: "SI" } as const;
+/** The unit systems; the beam functions' spellings are accepted too (kip-ft is US, kN-m is SI). */
+const UNITS = { US: "US", "kip-ft": "US", SI: "SI", "kN-m": "SI" } as const;
 const METHODS = { LRFD: "LRFD", ASD: "ASD", service: "service" } as const;
 const EXTREMES = { max: "max", min: "min" } as const;
 const YES_NO = { TRUE: "TRUE", FALSE: "FALSE", "1": "TRUE", "0": "FALSE", YES: "TRUE", NO: "FALSE" } as const;
@@ -211,7 +212,7 @@ function llrInput(a: LlrArgs): { lo: number; kll: number; at: number; floors: nu
  * @param KLL Live load element factor, Table 4.7-2 (see LOADPATH.KLL), e.g. 4 for an interior column.
  * @param AT Tributary area: ft² (US) or m² (SI).
  * @param [floors] Number of floors the member supports (1 or more). Default 1.
- * @param [units] "US" (ft², default) or "SI" (m²): selects the equation's coefficient and threshold.
+ * @param [units] "US" (ft², default; or "kip-ft") or "SI" (m²; or "kN-m"): selects the equation's coefficient and threshold.
  * @returns Reduced live load L, same unit as Lo.
  */
 export function llReduce(Lo: any, KLL: any, AT: any, floors?: any, units?: any): number {
@@ -230,7 +231,7 @@ export function llReduce(Lo: any, KLL: any, AT: any, floors?: any, units?: any):
  * @param KLL Live load element factor, Table 4.7-2 (see LOADPATH.KLL).
  * @param AT Tributary area: ft² (US) or m² (SI).
  * @param [floors] Number of floors the member supports (1 or more). Default 1.
- * @param [units] "US" (ft², default) or "SI" (m²).
+ * @param [units] "US" (ft², default; or "kip-ft") or "SI" (m²; or "kN-m").
  * @returns Live load L, same unit as Lo.
  */
 export function llHeavy(Lo: any, KLL: any, AT: any, floors?: any, units?: any): number {
@@ -274,7 +275,7 @@ const ROOF_ARGS = defineArgs(
  * @param Lo Unreduced roof live load: psf (US, usually 20) or kN/m² (SI, usually 0.96).
  * @param AT Tributary area: ft² (US) or m² (SI).
  * @param [rise] Roof slope: inches of rise per foot (US) or slope in percent (SI). Default 0 (flat).
- * @param [units] "US" (default) or "SI".
+ * @param [units] "US" (default; or "kip-ft") or "SI" (or "kN-m").
  * @returns Reduced roof live load Lr, same unit as Lo.
  */
 export function roofLlReduce(Lo: any, AT: any, rise?: any, units?: any): number {

@@ -322,14 +322,53 @@ function outsideStrings(formula: string, f: (code: string) => string): string {
     .join("");
 }
 
+/** String literals ("...", quotes doubled inside) and quoted sheet names ('...', apostrophes doubled). */
+const QUOTED = /("(?:[^"]|"")*"|'(?:[^']|'')*')/;
+
+/**
+ * A number literal with an exponent as Excel writes it (`1E-3`, `1.5E+10`, `2.E+3`), not part of
+ * a name or reference (`X1E5`, `$E$3`): the engine reads only a lower-case `e` and no bare point.
+ */
+const EXPONENT_LITERAL = /(?<![A-Za-z0-9_.$\\])(\d+(?:\.\d*)?|\.\d+)[eE]([+-]?\d+)(?![A-Za-z0-9_(!])/g;
+
+/**
+ * An Excel string literal (with its quotes) -> the same text for the engine. The engine's strings
+ * take a backslash as an escape and know no doubled quote, so a literal holding `""` or `\` is
+ * rebuilt from plain pieces joined with CHAR(34) and CHAR(92): `"say ""hi"""` ->
+ * `("say "&CHAR(34)&"hi"&CHAR(34))`.
+ */
+function engineString(literal: string): string {
+  const text = literal.slice(1, -1).replace(/""/g, '"');
+  if (!/["\\]/.test(text)) return literal;
+  const pieces = text.split(/(["\\])/).filter((p) => p !== "");
+  return `(${pieces.map((p) => (p === '"' ? "CHAR(34)" : p === "\\" ? "CHAR(92)" : `"${p}"`)).join("&")})`;
+}
+
+/** Parts of a formula that are code (not strings or quoted sheet names) rewritten by `f`; strings by {@link engineString}. */
+function rewriteCode(formula: string, f: (code: string) => string): string {
+  return formula
+    .split(QUOTED)
+    .map((piece, i) => (i % 2 === 0 ? f(piece) : piece.startsWith('"') ? engineString(piece) : piece))
+    .join("");
+}
+
+const FILE_CALL = new RegExp(`_xldudf_${NAMESPACE}_([A-Za-z0-9_]+)\\s*\\(`, "gi");
+
 /**
  * A formula as read from a file -> the spelling the engine parses: `_xldudf_LOADPATH_NAME(` ->
- * `LOADPATH.NAME(` (how Excel stores add-in calls in files), `_xlfn.`/`_xlws.` prefixes removed.
+ * `LOADPATH.NAME(` (how Excel stores add-in calls in files), `_xlfn.`/`_xlws.` prefixes removed,
+ * exponent literals in the engine's form (`1E-3` -> `1e-3`, `2.E+3` -> `2e+3`), and string
+ * literals with doubled quotes or backslashes rebuilt ({@link engineString}). References, quoted
+ * sheet names ('It''s'!A1), whole columns and rows, booleans, error literals and percentages are
+ * read by the engine as written.
  * @param formula - formula text with or without the leading "=".
  */
 export function toEngineFormula(formula: string): string {
-  return outsideStrings(formula, (code) =>
-    code.replace(new RegExp(`_xldudf_${NAMESPACE}_([A-Za-z0-9_]+)\\s*\\(`, "gi"), (_m, name: string) => `${NAMESPACE}.${name.toUpperCase()}(`).replace(/_xlfn\.(_xlws\.)?/gi, ""),
+  return rewriteCode(formula, (code) =>
+    code
+      .replace(FILE_CALL, (_m, name: string) => `${NAMESPACE}.${name.toUpperCase()}(`)
+      .replace(/_xlfn\.(_xlws\.)?/gi, "")
+      .replace(EXPONENT_LITERAL, (_m, mantissa: string, exponent: string) => `${mantissa.replace(/\.$/, "")}e${exponent}`),
   );
 }
 

@@ -12,9 +12,9 @@
 import { existsSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { compileFunction } from "node:vm";
-import { HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
+import { AlwaysDense, AlwaysSparse, HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
 import { createCustomFunctionsShim } from "./headless-shim";
-import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
+import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, toEngineFormula, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
 
 export * from "./headless-plugin";
 
@@ -97,6 +97,18 @@ export function registerLoadpathFunctions(distDir: string = defaultDistDir()): L
 }
 
 /**
+ * How the engine holds a sheet: as a grid (its default, fastest) unless at most one cell in a
+ * thousand of the sheet's extent holds anything; an empty sheet stays a grid as before.
+ */
+class GridUnlessNearlyBlank {
+  private readonly grid = new AlwaysDense();
+  private readonly sparse = new AlwaysSparse();
+  call(fill: number): ReturnType<AlwaysDense["call"]> | ReturnType<AlwaysSparse["call"]> {
+    return fill > 0 && fill <= 0.001 ? this.sparse.call() : this.grid.call();
+  }
+}
+
+/**
  * The engine configuration used everywhere headless. Smart rounding is off: HyperFormula would
  * round every output to 10 significant digits, while Excel keeps the full double in the cell
  * (and in the file) and only rounds what it displays.
@@ -108,6 +120,10 @@ export const HEADLESS_CONFIG: Partial<ConfigParams> = {
   // Range arithmetic element by element, as Excel, LibreOffice Calc and Gnumeric evaluate the
   // arguments of SUMPRODUCT: the hand-off takedown's formulas rely on it (src/engine/native).
   useArrayArithmetic: true,
+  // A sheet is held as a grid unless almost all of its extent is blank (one stray value in
+  // XFD1048576 beside a small table): then only its filled cells are kept, or the grid of
+  // 1,048,576 x 16,384 cells would exhaust the heap. Real tables and generated sheets stay grids.
+  chooseAddressMappingPolicy: new GridUnlessNearlyBlank(),
 };
 
 /** A HyperFormula instance with the LOADPATH functions, and the bundle they came from. */
@@ -129,6 +145,36 @@ export interface HeadlessOptions {
   readonly sheets?: Readonly<Record<string, RawCellContent[][]>>;
   /** Extra HyperFormula configuration. */
   readonly config?: Partial<ConfigParams>;
+  /** Workbook names to define (a file's defined names): name -> what it refers to ("Sheet1!$B$1"). */
+  readonly names?: readonly DefinedName[];
+}
+
+/** A workbook-level defined name: `Span` referring to `Sheet1!$B$1`. */
+export interface DefinedName {
+  readonly name: string;
+  /** What it refers to, in the engine's spelling, without "=". */
+  readonly refersTo: string;
+}
+
+/**
+ * Define workbook names in an engine; a name the engine cannot take (one that reads as a cell
+ * address, say) is left out, so formulas using it show #NAME? and are listed by the caller.
+ * @param hf - the engine
+ * @param names - the names
+ * @returns the names left out
+ */
+export function defineNames(hf: HyperFormula, names: readonly DefinedName[]): string[] {
+  const skipped: string[] = [];
+  for (const n of names) {
+    const expression = `=${toEngineFormula(n.refersTo)}`;
+    try {
+      if (hf.isItPossibleToAddNamedExpression(n.name, expression)) hf.addNamedExpression(n.name, expression);
+      else skipped.push(n.name);
+    } catch {
+      skipped.push(n.name);
+    }
+  }
+  return skipped;
 }
 
 /**
@@ -144,6 +190,7 @@ export async function createHeadless(options: HeadlessOptions = {}): Promise<Hea
   const config = { ...HEADLESS_CONFIG, ...options.config };
   const hf = Object.keys(sheets).length > 0 ? HyperFormula.buildFromSheets(sheets, config) : HyperFormula.buildEmpty(config);
   defineBooleans(hf);
+  if (options.names && options.names.length > 0) defineNames(hf, options.names);
   return { hf, bundle, functionIds: bundle.metadata.map((f) => `${NAMESPACE}.${f.id.toUpperCase()}`) };
 }
 

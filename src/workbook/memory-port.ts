@@ -10,7 +10,7 @@
  */
 import type ExcelJS from "exceljs";
 import { DetailedCellError, type RawCellContent, type SimpleCellAddress } from "hyperformula";
-import { cellAddress, parseCell } from "./a1";
+import { cellAddress, parseCell, sheetRef } from "./a1";
 import { HyperFormula } from "hyperformula";
 import { createHeadless, defaultDistDir, defineBooleans, excelErrorText, HEADLESS_CONFIG, NAMESPACE, registerLoadpathFunctions, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
 import { ForeignSheetError, GENERATED_MARKER, type CellInput, type CellSelection, type CellValue, type RangeData, type TableInfo, type WorkbookPort } from "./port";
@@ -32,6 +32,43 @@ export interface MemoryPortOptions extends Omit<HeadlessOptions, "sheets"> {
 
 /** Excel's sheet size: the headless engine accepts as much (its default is smaller). */
 export const SHEET_LIMITS = { maxRows: 1_048_576, maxColumns: 16_384 } as const;
+
+/** Default of {@link maxTableCells}: cells of one table or area read at once. */
+export const DEFAULT_MAX_TABLE_CELLS = 10_000_000;
+
+/**
+ * The most cells one table (or area) may have when it is read: `LOADPATH_MAX_CELLS` when set
+ * to a positive whole number, else {@link DEFAULT_MAX_TABLE_CELLS}. Checked before anything is
+ * allocated, so a table too large for memory stops with a message instead of aborting.
+ */
+export function maxTableCells(): number {
+  const env = typeof process !== "undefined" ? process.env?.LOADPATH_MAX_CELLS : undefined;
+  const n = env !== undefined ? Number(env) : NaN;
+  return Number.isInteger(n) && n > 0 ? n : DEFAULT_MAX_TABLE_CELLS;
+}
+
+/** Sheets larger than this many cells (height x width) are copied cell by cell from the engine's map of filled cells. */
+const DENSE_COPY_CELLS = 4_000_000;
+
+/**
+ * A sheet's content as the engine holds it ("=formula" strings, values), rows of cells. A sheet
+ * whose extent is huge but sparse (one stray value in XFD1048576, say) is copied from the cells
+ * that hold something, never by walking the whole grid.
+ */
+function sheetContent(hf: HyperFormula, sheet: number): RawCellContent[][] {
+  const { width, height } = hf.getSheetDimensions(sheet);
+  if (width * height <= DENSE_COPY_CELLS) return hf.getSheetSerialized(sheet);
+  const rows: RawCellContent[][] = [];
+  for (const [address] of hf.addressMapping.sheetEntries(sheet)) {
+    const content = hf.getCellSerialized(address);
+    if (content === null || content === undefined) continue;
+    while (rows.length <= address.row) rows.push([]);
+    const row = rows[address.row]!;
+    while (row.length < address.col) row.push(null);
+    row[address.col] = content;
+  }
+  return rows;
+}
 
 interface QueuedBlock {
   readonly top: number;
@@ -122,23 +159,32 @@ export class MemoryWorkbookPort implements WorkbookPort {
     return this.tables.find((t) => t.name.toLowerCase() === key);
   }
 
-  /** Bounding box of the non-blank cells of a sheet ("A1:A1" for an empty sheet). */
+  /**
+   * The table a sheet holds, by its real extent ("A1:A1" for an empty sheet): its header row is
+   * the first row with a value, its columns run from that row's first to its last non-blank cell,
+   * and its rows down to the last row with a value in those columns. Values outside (a note to the
+   * right, one stray value in XFD1048576) do not widen it. Only the cells that hold something are
+   * visited, never the whole grid.
+   */
   usedArea(sheet: string): string {
-    const values = this.hf.getSheetValues(this.sheetId(sheet));
-    let top = -1;
-    let bottom = -1;
+    const id = this.sheetId(sheet);
+    const filled: { row: number; col: number }[] = [];
+    for (const [address] of this.hf.addressMapping.sheetEntries(id)) {
+      const v = this.hf.getCellValue(address);
+      if (v !== null && v !== "") filled.push({ row: address.row, col: address.col });
+    }
+    if (filled.length === 0) return "A1:A1";
+    let top = Number.POSITIVE_INFINITY;
+    for (const c of filled) top = Math.min(top, c.row);
     let left = Number.POSITIVE_INFINITY;
     let right = -1;
-    values.forEach((row, r) => {
-      row.forEach((v, c) => {
-        if (v === null || v === "") return;
-        if (top < 0) top = r;
-        bottom = r;
-        left = Math.min(left, c);
-        right = Math.max(right, c);
-      });
-    });
-    if (top < 0) return "A1:A1";
+    for (const c of filled) {
+      if (c.row !== top) continue;
+      left = Math.min(left, c.col);
+      right = Math.max(right, c.col);
+    }
+    let bottom = top;
+    for (const c of filled) if (c.col >= left && c.col <= right) bottom = Math.max(bottom, c.row);
     return `${cellAddress(top, left)}:${cellAddress(bottom, right)}`;
   }
 
@@ -152,6 +198,13 @@ export class MemoryWorkbookPort implements WorkbookPort {
     const left = Math.min(p.col, q.col);
     const height = Math.max(p.row, q.row) - top + 1;
     const width = Math.max(p.col, q.col) - left + 1;
+    const limit = maxTableCells();
+    if (height * width > limit) {
+      throw new Error(
+        `${sheetRef(sheet)}!${cellAddress(top, left)}:${cellAddress(top + height - 1, left + width - 1)} is ${height.toLocaleString("en-US")} rows x ${width.toLocaleString("en-US")} columns, ` +
+          `more than the ${limit.toLocaleString("en-US")} cells a table may have; make the table smaller, or raise the limit with the environment variable LOADPATH_MAX_CELLS (e.g. LOADPATH_MAX_CELLS=${(2 * limit).toFixed(0)}).`,
+      );
+    }
     // Cell by cell through one address object: the engine's getRangeValues makes an address
     // object and a second array for every cell, which counts when a takedown reads ~10^6 cells.
     const at: SimpleCellAddress = { sheet: sheetId, row: top, col: left };
@@ -286,7 +339,7 @@ export class MemoryWorkbookPort implements WorkbookPort {
       const sheets: Record<string, RawCellContent[][]> = {};
       for (const name of this.hf.getSheetNames()) {
         const blocks = this.queued.get(name);
-        sheets[name] = fresh.includes(name) ? mergeBlocks(blocks!) : this.hf.getSheetSerialized(this.sheetId(name));
+        sheets[name] = fresh.includes(name) ? mergeBlocks(blocks!) : sheetContent(this.hf, this.sheetId(name));
         if (blocks && !fresh.includes(name)) overlay(sheets[name]!, blocks);
       }
       const names = this.hf.getAllNamedExpressionsSerialized().filter((n) => n.scope === undefined && !["TRUE", "FALSE"].includes(n.name.toUpperCase()));

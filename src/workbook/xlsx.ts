@@ -12,13 +12,14 @@
  * over the spilled area (`t="array"`) with the values in the other cells: ExcelJS cannot write
  * Excel's dynamic-array marker, and an array formula computes the same cells.
  */
-import { existsSync } from "node:fs";
+import { existsSync, statSync } from "node:fs";
+import { readFile } from "node:fs/promises";
 import { resolve } from "node:path";
 import ExcelJS from "exceljs";
-import { DetailedCellError, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
+import { DetailedCellError, ErrorType, HyperFormula, type CellValue as HfCellValue, type RawCellContent } from "hyperformula";
 import { cellAddress, parseCell, sheetRef } from "./a1";
 import { writeAtomically } from "./files";
-import { callsLoadpath, createHeadless, excelErrorText, toEngineFormula, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
+import { callsLoadpath, createHeadless, excelErrorText, NAMESPACE, toEngineFormula, toFileFormula, type DefinedName, type Headless, type HeadlessOptions } from "./headless";
 
 /** A formula cell as found in the file. Rows and columns are 0-based. */
 export interface XlsxFormulaCell {
@@ -29,6 +30,8 @@ export interface XlsxFormulaCell {
   readonly formula: string;
   /** For an array formula (Excel's spilled results are stored this way), its area, e.g. "F2:H2". */
   readonly arrayRef?: string;
+  /** The value the file holds for it (its last result), if any. */
+  readonly cached?: Cached;
 }
 
 /** An Excel table (ListObject) of the workbook. */
@@ -55,7 +58,12 @@ export interface XlsxWorkbook {
   readonly sheets: readonly XlsxSheet[];
   readonly formulas: readonly XlsxFormulaCell[];
   readonly tables: readonly XlsxTable[];
+  /** The workbook's defined names that refer to one range (print areas and the like left out). */
+  readonly names: readonly DefinedName[];
 }
+
+/** A value cached in a file for a formula cell. */
+type Cached = number | string | boolean | { error: string } | undefined;
 
 /** Excel's day 0 (1899-12-30) in ms since the Unix epoch: dates become serial day numbers. */
 const EXCEL_EPOCH_MS = Date.UTC(1899, 11, 30);
@@ -92,14 +100,34 @@ function plainContent(cell: CellModelish): RawCellContent {
   }
 }
 
-/** Cells of an "A1:C3" area, 0-based. */
-export function areaCells(ref: string): { row: number; col: number }[] {
-  const [a, b = a] = ref.split(":");
+/**
+ * Cells of an "A1:C3" area, 0-based, within the rows and columns that can hold anything (`last`:
+ * the sheet's last row and column with content): an area a file declares over a whole sheet
+ * ("A1:XFD1048576") visits only the sheet's real extent, never a billion cells.
+ * @param ref - the area
+ * @param last - 0-based last row and column of the sheet's content (default: no bound)
+ */
+export function areaCells(ref: string, last: { row: number; col: number } = { row: Number.POSITIVE_INFINITY, col: Number.POSITIVE_INFINITY }): { row: number; col: number }[] {
+  const [a, b = a] = ref.replace(/\$/g, "").split(":");
   const p = parseCell(a!);
   const q = parseCell(b!);
   const out: { row: number; col: number }[] = [];
-  for (let r = Math.min(p.row, q.row); r <= Math.max(p.row, q.row); r++) for (let c = Math.min(p.col, q.col); c <= Math.max(p.col, q.col); c++) out.push({ row: r, col: c });
+  const bottom = Math.min(Math.max(p.row, q.row), last.row);
+  const right = Math.min(Math.max(p.col, q.col), last.col);
+  for (let r = Math.min(p.row, q.row); r <= bottom; r++) for (let c = Math.min(p.col, q.col); c <= right; c++) out.push({ row: r, col: c });
   return out;
+}
+
+const lastCells = new WeakMap<ExcelJS.Worksheet, { row: number; col: number }>();
+
+/** 0-based last row and column of a worksheet's content as read (ExcelJS's extent, worked out once per sheet). */
+function lastCell(ws: ExcelJS.Worksheet): { row: number; col: number } {
+  let last = lastCells.get(ws);
+  if (!last) {
+    last = { row: ws.rowCount - 1, col: ws.columnCount - 1 };
+    lastCells.set(ws, last);
+  }
+  return last;
 }
 
 function setAt(rows: RawCellContent[][], row: number, col: number, content: RawCellContent): void {
@@ -119,9 +147,10 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
       const model = cell as unknown as CellModelish;
       if (cell.type === ExcelJS.ValueType.Formula) {
         const formula = String(cell.formula ?? "");
-        const value = cell.value as { shareType?: string; ref?: string };
+        const value = cell.value as { shareType?: string; ref?: string; result?: unknown };
         const arrayRef = value.shareType === "array" && value.ref ? value.ref : undefined;
-        formulas.push({ sheet: ws.name, row: r, col: c, formula, ...(arrayRef ? { arrayRef } : {}) });
+        const cached = cachedInFile(value.result);
+        formulas.push({ sheet: ws.name, row: r, col: c, formula, ...(arrayRef ? { arrayRef } : {}), ...(cached !== undefined ? { cached } : {}) });
         setAt(rows, r, c, "=" + toEngineFormula(formula));
       } else if (cell.type !== ExcelJS.ValueType.Merge) {
         setAt(rows, r, c, plainContent(model));
@@ -131,9 +160,32 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
   // The other cells of an array formula hold its last results: clear them, the engine recomputes.
   for (const f of formulas) {
     if (!f.arrayRef) continue;
-    for (const { row, col } of areaCells(f.arrayRef)) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
+    for (const { row, col } of areaCells(f.arrayRef, lastCell(ws))) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
   }
   return { sheet: { name: ws.name, rows }, formulas };
+}
+
+/** A formula's last result as the file holds it (dates as serial numbers). */
+function cachedInFile(result: unknown): Cached {
+  if (typeof result === "number" || typeof result === "string" || typeof result === "boolean") return result;
+  if (result instanceof Date) return (result.getTime() - EXCEL_EPOCH_MS) / MS_PER_DAY;
+  if (typeof result === "object" && result !== null && typeof (result as { error?: unknown }).error === "string") return { error: (result as { error: string }).error };
+  return undefined;
+}
+
+/** The defined names of a workbook that refer to a single range (not print areas, filters or unions). */
+function definedNamesOf(excel: ExcelJS.Workbook): DefinedName[] {
+  const model = (excel.definedNames as unknown as { model?: { name?: string; ranges?: string[] }[] }).model ?? [];
+  const seen = new Set<string>();
+  const out: DefinedName[] = [];
+  for (const n of model) {
+    const name = String(n.name ?? "");
+    const key = name.toUpperCase();
+    if (name === "" || key.startsWith("_XLNM.") || seen.has(key) || n.ranges?.length !== 1) continue;
+    seen.add(key);
+    out.push({ name, refersTo: n.ranges[0]! });
+  }
+  return out;
 }
 
 function isFormula(content: RawCellContent | undefined): boolean {
@@ -163,22 +215,63 @@ export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkboo
     formulas.push(...read.formulas);
     tables.push(...readTables(ws));
   });
-  return { ...(path ? { path } : {}), excel, sheets, formulas, tables };
+  return { ...(path ? { path } : {}), excel, sheets, formulas, tables, names: definedNamesOf(excel) };
+}
+
+/** The start of a zip file (a local file header), and of an empty zip (its end record). */
+const ZIP_MAGIC = [Buffer.from("PK\x03\x04", "latin1"), Buffer.from("PK\x05\x06", "latin1")];
+/** The start of an OLE compound file: an encrypted (password-protected) workbook, or an old .xls. */
+const OLE_MAGIC = Buffer.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1]);
+
+/** A stream name of a compound file as stored in its directory (UTF-16LE). */
+function utf16(text: string): Buffer {
+  return Buffer.from(text, "utf16le");
+}
+
+/**
+ * Why the bytes of a file are not an .xlsx workbook ExcelJS can read, or undefined when they look
+ * like one (a zip holding `xl/workbook.xml`). Only the bytes are looked at, nothing is unpacked:
+ * the names of a zip's parts are stored uncompressed in its central directory.
+ */
+export function notAWorkbook(bytes: Buffer): string | undefined {
+  if (bytes.length === 0) return "not an .xlsx workbook (the file is empty)";
+  if (bytes.subarray(0, OLE_MAGIC.length).equals(OLE_MAGIC)) {
+    if (bytes.includes(utf16("EncryptionInfo")) || bytes.includes(utf16("EncryptedPackage"))) {
+      return "encrypted workbook (it has a password to open: remove the password in Excel, File > Info > Protect Workbook, and save it again)";
+    }
+    return "not an .xlsx workbook (an older binary file, such as an .xls workbook: open it in Excel and save it as .xlsx)";
+  }
+  if (!ZIP_MAGIC.some((m) => bytes.subarray(0, m.length).equals(m))) return "not an .xlsx workbook (not a zip file)";
+  if (!bytes.includes(Buffer.from("xl/workbook.xml", "latin1"))) {
+    const what = bytes.includes(Buffer.from("word/document.xml", "latin1")) ? "a Word document" : bytes.includes(Buffer.from("ppt/presentation.xml", "latin1")) ? "a PowerPoint file" : "a zip file without a workbook in it";
+    return `not an .xlsx workbook (${what})`;
+  }
+  return undefined;
 }
 
 /**
  * Read an .xlsx file.
  * @param path - the file.
- * @throws Error with a plain message when the file is missing or not an .xlsx workbook.
+ * @throws Error with a plain message when the file is missing, not an .xlsx workbook (`<file>: not
+ * an .xlsx workbook (...)`) or an encrypted one (`<file>: encrypted workbook (...)`).
  */
 export async function readXlsx(path: string): Promise<XlsxWorkbook> {
   const full = resolve(path);
   if (!existsSync(full)) throw new Error(`${path}: no such file.`);
+  let bytes: Buffer;
+  try {
+    if (statSync(full).isDirectory()) throw new Error("it is a folder");
+    bytes = await readFile(full);
+  } catch (e) {
+    throw new Error(`${path}: cannot be read (${e instanceof Error ? e.message : String(e)}).`);
+  }
+  const why = notAWorkbook(bytes);
+  if (why !== undefined) throw new Error(`${path}: ${why}.`);
   const excel = new ExcelJS.Workbook();
   try {
-    await excel.xlsx.readFile(full);
+    await excel.xlsx.load(bytes as unknown as ArrayBuffer);
   } catch (e) {
-    throw new Error(`${path}: not a readable .xlsx workbook (${e instanceof Error ? e.message : String(e)}).`);
+    throw new Error(`${path}: not an .xlsx workbook that can be read (a damaged file? ${e instanceof Error ? e.message : String(e)}).`);
   }
   return fromExcelJs(excel, full);
 }
@@ -194,7 +287,7 @@ export function engineSheets(wb: XlsxWorkbook): Record<string, RawCellContent[][
  * @param options - headless options (bundle folder, configuration).
  */
 export async function evaluateWorkbook(wb: XlsxWorkbook, options: Omit<HeadlessOptions, "sheets"> = {}): Promise<Headless> {
-  return createHeadless({ ...options, sheets: engineSheets(wb) });
+  return createHeadless({ ...options, sheets: engineSheets(wb), names: wb.names });
 }
 
 /** What went wrong in one formula cell. */
@@ -202,8 +295,13 @@ export interface CellProblem {
   readonly sheet: string;
   /** A1 address on the sheet. */
   readonly address: string;
-  /** unknownFunction = #NAME?; cycle = circular reference; error = any other error value. */
-  readonly kind: "unknownFunction" | "cycle" | "error";
+  /**
+   * unknownFunction = #NAME?; cycle = circular reference; error = any other error value;
+   * notEvaluated = the formula cannot be evaluated headless (it does not parse here, or calls a
+   * function or name the engine lacks): the file keeps the cell as it was, cached value included,
+   * and formulas that use it read that cached value.
+   */
+  readonly kind: "unknownFunction" | "cycle" | "error" | "notEvaluated";
   /** Excel error text, e.g. "#VALUE!". */
   readonly code: string;
   readonly message: string;
@@ -239,7 +337,6 @@ function arrayExtent(hf: HyperFormula, sheet: number, row: number, col: number):
   return { rows, cols };
 }
 
-type Cached = number | string | boolean | { error: string } | undefined;
 
 /** A computed value as cached in a file. */
 function cachedOf(v: HfCellValue): Cached {
@@ -255,26 +352,97 @@ function plainOf(v: HfCellValue): ExcelJS.CellValue {
 }
 
 /**
+ * Why a formula cell cannot be evaluated headless, or undefined when it can: it does not parse
+ * here, or it calls a function or uses a name the engine does not have (errors passed on from
+ * another cell are that cell's).
+ */
+function unevaluable(hf: HyperFormula, f: XlsxFormulaCell, value: HfCellValue): string | undefined {
+  if (!(value instanceof DetailedCellError)) return undefined;
+  const here = `${f.sheet}!${cellAddress(f.row, f.col)}`;
+  if (value.address && value.address.replace(/'/g, "") !== here.replace(/'/g, "")) return undefined;
+  if (value.type === ErrorType.ERROR) {
+    // A parse error reaches the cells that use it without an origin: only the cell itself fails to parse.
+    return hf.validateFormula(`=${toEngineFormula(f.formula)}`) ? undefined : `the formula cannot be read here (${value.message.replace(/\.$/, "")})`;
+  }
+  if (value.type !== ErrorType.NAME) return undefined;
+  const fn = /Function name (\S+) not recognized/.exec(value.message);
+  // A LOADPATH function that does not exist is a mistake in the formula (Excel shows #NAME? too).
+  if (fn) return fn[1]!.toUpperCase().startsWith(`${NAMESPACE}.`) ? undefined : `function ${fn[1]} is not available headless`;
+  const name = /Named expression (\S+) not recognized/.exec(value.message);
+  if (name) return `name ${name[1]} is not defined in the workbook`;
+  return undefined;
+}
+
+/** A cached value for a message: `the cached value 40`, `the cached text "x"`, `no cached value`. */
+function describeCached(c: Cached): string {
+  if (c === undefined) return "its formula (the file has no cached value for it)";
+  if (typeof c === "object") return `its formula and cached value ${c.error}`;
+  return `its formula and cached value ${typeof c === "string" ? JSON.stringify(c) : String(c).toUpperCase()}`;
+}
+
+/** A cached value as engine content (text kept as text). */
+function cachedContent(c: Cached): RawCellContent {
+  if (c === undefined) return null;
+  if (typeof c === "object") return c.error;
+  if (typeof c === "string") return c === "" ? null : `'${c}`;
+  return c;
+}
+
+/**
+ * Find the formula cells that cannot be evaluated headless and put their cached values in the
+ * engine in their place (for an array formula, its whole area as the file holds it), so the
+ * cells that use them compute from what Excel last computed rather than from an error.
+ * @returns each such cell and why
+ */
+function keepUnevaluable(wb: XlsxWorkbook, hf: HyperFormula): Map<XlsxFormulaCell, string> {
+  const kept = new Map<XlsxFormulaCell, string>();
+  for (const f of wb.formulas) {
+    const why = unevaluable(hf, f, hf.getCellValue({ sheet: hf.getSheetId(f.sheet)!, row: f.row, col: f.col }));
+    if (why !== undefined) kept.set(f, why);
+  }
+  if (kept.size === 0) return kept;
+  hf.batch(() => {
+    for (const f of kept.keys()) {
+      const sheet = hf.getSheetId(f.sheet)!;
+      const ws = wb.excel.getWorksheet(f.sheet)!;
+      for (const { row, col } of f.arrayRef ? areaCells(f.arrayRef, lastCell(ws)) : [{ row: f.row, col: f.col }]) {
+        const content = row === f.row && col === f.col ? cachedContent(f.cached) : plainContent(ws.getCell(row + 1, col + 1) as unknown as CellModelish);
+        hf.setCellContents({ sheet, row, col }, [[content]]);
+      }
+    }
+  });
+  return kept;
+}
+
+/**
  * Evaluate every formula and cache the results in the workbook's ExcelJS model: each formula
  * cell becomes `{ formula, result }` (LOADPATH calls in the file spelling), spilled results become
  * array formulas over their area with the values in the other cells.
  * @param wb - the workbook read by {@link readXlsx}.
  * @param headless - an engine built from `wb` by {@link evaluateWorkbook}.
- * @returns counts and every formula cell whose value is an error.
+ * A formula that cannot be evaluated headless (see {@link CellProblem}) is left as the file has it.
+ * @returns counts and every formula cell whose value is an error or that was not evaluated.
  */
 export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummary {
   const hf = headless.hf;
   const problems: CellProblem[] = [];
   let loadpathCount = 0;
+  const kept = keepUnevaluable(wb, hf);
   for (const f of wb.formulas) {
     const sheetId = hf.getSheetId(f.sheet)!;
     const ws = wb.excel.getWorksheet(f.sheet)!;
     const addr = { sheet: sheetId, row: f.row, col: f.col };
-    const value = hf.getCellValue(addr);
     if (callsLoadpath(f.formula)) loadpathCount++;
+    const why = kept.get(f);
+    if (why !== undefined) {
+      // Left as the file has it (formula and cached value); its dependents read the cached value.
+      problems.push({ sheet: f.sheet, address: cellAddress(f.row, f.col), kind: "notEvaluated", code: "", message: `${why}; not recalculated, the cell keeps ${describeCached(f.cached)}.`, loadpath: callsLoadpath(f.formula) });
+      continue;
+    }
+    const value = hf.getCellValue(addr);
     if (value instanceof DetailedCellError) problems.push(problemOf(f, value));
     const formula = toFileFormula(f.formula);
-    if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef)) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
+    if (f.arrayRef) for (const { row, col } of areaCells(f.arrayRef, lastCell(ws))) if (row !== f.row || col !== f.col) ws.getCell(row + 1, col + 1).value = null;
     const cell = ws.getCell(f.row + 1, f.col + 1);
     if (hf.getCellType(addr) === "ARRAYFORMULA") {
       const size = arrayExtent(hf, sheetId, f.row, f.col);

@@ -112,18 +112,18 @@ describe("loadpath recalc", () => {
     })())).toBe(25);
   });
 
-  it("unknown non-LOADPATH functions and cycles are reported but do not fail the run", async () => {
+  it("an unknown non-LOADPATH function keeps its cached value, is listed and exits 1; cycles are reported", async () => {
     const input = join(dir, "other.xlsx");
     const wb = new ExcelJS.Workbook();
     const ws = wb.addWorksheet("Sheet 2");
-    ws.getCell("A1").value = { formula: "NOSUCHFUNCTION(1)" };
+    ws.getCell("A1").value = { formula: "NOSUCHFUNCTION(1)", result: 7 } as ExcelJS.CellValue;
     ws.getCell("B1").value = { formula: "C1+1" };
     ws.getCell("C1").value = { formula: "B1+1" };
     ws.getCell("D1").value = { formula: "LOADPATH.SHEAR_MAX(10,2)" };
     await wb.xlsx.writeFile(input);
     const r = run("recalc", input);
-    expect(r.status).toBe(0);
-    expect(r.stderr).toMatch(/^'Sheet 2'!A1: #NAME\? unknown function: /m);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(/^'Sheet 2'!A1: function NOSUCHFUNCTION is not available headless; not recalculated, the cell keeps its formula and cached value 7\./m);
     expect(r.stderr).toMatch(/^'Sheet 2'!B1: cycle: circular reference/m);
     expect(r.stdout).toMatch(/nothing written \(no -o\)/);
   });

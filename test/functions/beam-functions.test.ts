@@ -75,6 +75,14 @@ describe("simple beam, uniform load (AISC Table 3-23, case 1)", () => {
     const iReqSi = (5 * 20 * 6000 ** 4) / (384 * 200000 * (6000 / 250));
     close(f.requiredI(6, [[20]], 200000, 250, "KN-M"), iReqSi);
   });
+  it("units also in the load functions' vocabulary: US = kip-ft (inches), SI = kN-m (mm), any case", () => {
+    const E = 29000;
+    const I = 500;
+    close(f.deflectionMax(L, [[w]], E, I, "US"), (5 * (w / 12) * (12 * L) ** 4) / (384 * E * I));
+    close(f.deflectionAt(L, [[w]], E, I, "us", 6), ((w / 12) * 72 * ((12 * L) ** 3 - 2 * (12 * L) * 72 ** 2 + 72 ** 3)) / (24 * E * I));
+    close(f.deflectionMax(6, [[20]], 200000, 80e6, "SI"), (5 * 20 * 6000 ** 4) / (384 * 200000 * 80e6));
+    close(f.requiredI(6, [[20]], 200000, 250, " si "), (5 * 20 * 6000 ** 4) / (384 * 200000 * (6000 / 250)));
+  });
   it("required I uses the largest deflection up or down (an uplift load deflects upward only)", () => {
     const E = 29000;
     expect(f.deflectionMax(L, [[-w]], E, 500, "kip-ft")).toBe(0);
@@ -230,7 +238,7 @@ describe("every bad input is #VALUE! with a message naming the argument and row"
     ["unstable supports", () => f.momentMax(20, [[1]], [[10, "pin"]]), /^supports: /],
     ["E not positive", () => f.deflectionMax(20, [[1]], 0, 100, "kip-ft"), "E: must be greater than 0 (got 0)."],
     ["I not positive", () => f.deflectionMax(20, [[1]], 29000, -5, "kip-ft"), "I: must be greater than 0 (got -5)."],
-    ["unknown units", () => f.deflectionMax(20, [[1]], 29000, 100, "kip-in"), 'units: "kip-in" is not recognised; use one of "kip-ft", "kN-m", "consistent".'],
+    ["unknown units", () => f.deflectionMax(20, [[1]], 29000, 100, "kip-in"), 'units: "kip-in" is not recognised; use one of "kip-ft" (or "US"), "kN-m" (or "SI"), "consistent".'],
     ["too many load rows", () => f.momentMax(20, Array.from({ length: 1001 }, () => [1, null, null, null])), "loads: 1001 rows; at most 1000 are accepted."],
     ["too many support rows", () => f.momentMax(20, [[1]], Array.from({ length: 101 }, (_, i) => [i / 10])), "supports: 101 rows; at most 100 are accepted."],
     ["blank kind with a magnitude", () => f.momentMax(20, [["line", 1, null, null, null], [null, 2, null, null, null]]), "loads, row 2: kind is blank but the row has values; give line, point or moment."],

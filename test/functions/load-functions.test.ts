@@ -123,9 +123,17 @@ describe("LL_REDUCE, LL_HEAVY, KLL, ROOF_LL_REDUCE", () => {
     expect(f.roofLlReduce(0.96, 60, 100, "SI")).toBe(0.58);
   });
 
+  it("units also in the beam functions' vocabulary: kip-ft = US, kN-m = SI, any case", () => {
+    expect(f.llReduce(50, 4, 900, 3, "kip-ft")).toBeCloseTo(50 * (0.25 + 15 / Math.sqrt(4 * 900)), 12);
+    expect(f.llReduce(2.4, 4, 40, null, "KN-M")).toBeCloseTo(2.4 * (0.25 + 4.57 / Math.sqrt(160)), 12);
+    expect(f.llHeavy(150, 4, 900, 3, "kip-ft")).toBeCloseTo(0.8 * 150, 12);
+    expect(f.roofLlReduce(0.96, 60, 100, "kn-m")).toBe(0.58);
+    expect(f.roofLlReduce(20, 400, 0, "Kip-Ft")).toBeCloseTo(20 * (1.2 - 0.001 * 400), 12);
+  });
+
   it("errors name the argument: unknown units, KLL as text, fractional floors, negative area, unknown element", () => {
     const u = errorOf(f.llReduce(50, 4, 900, 1, "metric"));
-    expect(u.message).toMatch(/^units: "metric" is not recognised; use one of "US", "SI"/);
+    expect(u.message).toMatch(/^units: "metric" is not recognised; use one of "US" \(or "kip-ft"\), "SI" \(or "kN-m"\)/);
     expect(errorOf(f.llReduce(50, "interior column", 900)).message).toMatch(/^KLL: "interior column" is text/);
     expect(errorOf(f.llReduce(50, 4, 900, 1.5)).message).toMatch(/^floors: must be a whole number/);
     expect(errorOf(f.llReduce(50, 4, -900)).message).toMatch(/^AT: must not be negative/);

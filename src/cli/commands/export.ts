@@ -238,6 +238,7 @@ export async function exportHandoff(input: string, output: string | undefined, o
   const port = await MemoryWorkbookPort.create({
     sheets: engineSheets(wb),
     tables: wb.tables.map(({ name, sheet, ref }) => ({ name, sheet, ref })),
+    names: wb.names,
     ...(options.distDir ? { distDir: options.distDir } : {}),
   });
   const specs = options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units));

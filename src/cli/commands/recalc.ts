@@ -15,13 +15,16 @@ nothing is written (a check only). The input is never written over; the output i
 or not at all.
 
 Errors are listed on stderr as Sheet!A1: message (unknown functions, circular references,
-formula errors). Exit status: 0 when every LOADPATH call succeeded, 1 when any returned an
-error (the workbook is still written), 2 for usage or file errors (a file that cannot be read:
-nothing written). Interface: docs/interface.md.`;
+formula errors). A formula that cannot be evaluated here (a structured table reference, a
+function this engine lacks) keeps its formula and the value Excel cached, and is listed.
+Exit status: 0 when every LOADPATH call succeeded, 1 when any returned an error or a formula
+could not be evaluated (the workbook is still written), 2 for usage or file errors (a file that
+cannot be read: nothing written). Interface: docs/interface.md.`;
 
 /** One stderr line for a problem cell. */
 export function describeProblem(p: CellProblem): string {
-  const what = p.kind === "unknownFunction" ? `${p.code} unknown function: ${p.message}` : p.kind === "cycle" ? `cycle: ${p.message}` : `${p.code} ${p.message}`;
+  const what =
+    p.kind === "unknownFunction" ? `${p.code} unknown function: ${p.message}` : p.kind === "cycle" ? `cycle: ${p.message}` : p.kind === "notEvaluated" ? p.message : `${p.code} ${p.message}`;
   return `${problemAddress(p)}: ${what}${p.from ? ` (from ${p.from})` : ""}`;
 }
 
@@ -32,9 +35,9 @@ export function summaryLine(s: RecalcSummary, output: string | undefined): strin
   return output ? `${head}; written to ${output}.` : `${head}; check only, nothing written (no -o).`;
 }
 
-/** Exit status of a recalculation: 1 when any LOADPATH call ended in an error. */
+/** Exit status of a recalculation: 1 when any LOADPATH call ended in an error or any formula could not be evaluated. */
 export function exitStatus(s: RecalcSummary): number {
-  return s.problems.some((p) => p.loadpath) ? EXIT.failed : EXIT.ok;
+  return s.problems.some((p) => p.loadpath || p.kind === "notEvaluated") ? EXIT.failed : EXIT.ok;
 }
 
 /**
