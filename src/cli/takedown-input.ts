@@ -10,7 +10,7 @@ import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { tableRowCount, takedownMemoryProblem } from "../workbook/size-limits";
 import { buildTakedown } from "../workbook/takedown-build";
 import type { ColumnMapping, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
-import { engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
+import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
 import { readInputWorkbook } from "./shared";
 import { unitFits } from "../engine/takedown/units";
 
@@ -198,7 +198,7 @@ function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string
  */
 export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
   const workbook = await readInputWorkbook(input);
-  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names });
+  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names, dates: dateCells(workbook) });
   const zones = tableName(workbook, run.zones, "Zones");
   const members = tableName(workbook, run.members, "Members");
   if (zones === undefined || members === undefined) {

@@ -28,6 +28,8 @@ export interface MemoryPortOptions extends Omit<HeadlessOptions, "sheets"> {
   readonly sheets?: Readonly<Record<string, RawCellContent[][]>>;
   /** Excel tables over those sheets. */
   readonly tables?: readonly MemoryTable[];
+  /** Cells holding dates, by sheet, as "row,col" (0-based): tables read report them. */
+  readonly dates?: Readonly<Record<string, ReadonlySet<string>>>;
 }
 
 /** Excel's sheet size: the headless engine accepts as much (its default is smaller). */
@@ -119,6 +121,9 @@ export class MemoryWorkbookPort implements WorkbookPort {
    * @param tables - the workbook's Excel tables
    * @param options - how to build a new engine when a flush rebuilds it (bundle folder, configuration)
    */
+  /** Cells holding dates, by sheet, as "row,col" (0-based). */
+  private dates: Readonly<Record<string, ReadonlySet<string>>> = {};
+
   constructor(
     headless: Headless,
     readonly tables: readonly MemoryTable[] = [],
@@ -132,10 +137,12 @@ export class MemoryWorkbookPort implements WorkbookPort {
    * @param options - sheets, tables, bundle folder and engine configuration
    */
   static async create(options: MemoryPortOptions = {}): Promise<MemoryWorkbookPort> {
-    const { sheets, tables, ...rest } = options;
+    const { sheets, tables, dates, ...rest } = options;
     const engine = { ...rest, config: { ...SHEET_LIMITS, ...rest.config } };
     const headless = await createHeadless({ ...engine, sheets: sheets ?? {} });
-    return new MemoryWorkbookPort(headless, tables ?? [], engine);
+    const port = new MemoryWorkbookPort(headless, tables ?? [], engine);
+    port.dates = dates ?? {};
+    return port;
   }
 
   /** The engine holding the workbook (a flush that fills a prepared sheet builds a new one). */
@@ -218,7 +225,17 @@ export class MemoryWorkbookPort implements WorkbookPort {
       }
       values[i] = row;
     }
-    return { sheet, top, left, values };
+    const dated = this.dates[sheet];
+    if (dated === undefined) return { sheet, top, left, values };
+    let any = false;
+    const dates = values.map((row, i) =>
+      row.map((_, j) => {
+        const d = dated.has(`${top + i},${left + j}`);
+        any ||= d;
+        return d;
+      }),
+    );
+    return { sheet, top, left, values, ...(any ? { dates } : {}) };
   }
 
   async listTables(): Promise<TableInfo[]> {

@@ -47,6 +47,8 @@ export interface XlsxTable {
 export interface XlsxSheet {
   readonly name: string;
   readonly rows: RawCellContent[][];
+  /** Cells holding a date (read as serial day numbers), as "row,col" 0-based. */
+  readonly dates: ReadonlySet<string>;
 }
 
 /** A workbook read from a file, ready to evaluate and to write back. */
@@ -140,6 +142,7 @@ function setAt(rows: RawCellContent[][], row: number, col: number, content: RawC
 function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFormulaCell[] } {
   const rows: RawCellContent[][] = [];
   const formulas: XlsxFormulaCell[] = [];
+  const dates = new Set<string>();
   ws.eachRow({ includeEmpty: false }, (row, rowNumber) => {
     row.eachCell({ includeEmpty: false }, (cell, colNumber) => {
       const r = rowNumber - 1;
@@ -154,6 +157,7 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
         setAt(rows, r, c, "=" + toEngineFormula(formula));
       } else if (cell.type !== ExcelJS.ValueType.Merge) {
         setAt(rows, r, c, plainContent(model));
+        if (cell.type === ExcelJS.ValueType.Date) dates.add(`${r},${c}`);
       }
     });
   });
@@ -162,7 +166,7 @@ function readSheet(ws: ExcelJS.Worksheet): { sheet: XlsxSheet; formulas: XlsxFor
     if (!f.arrayRef) continue;
     for (const { row, col } of areaCells(f.arrayRef, lastCell(ws))) if ((row !== f.row || col !== f.col) && rows[row]?.[col] !== undefined && !isFormula(rows[row]![col])) rows[row]![col] = null;
   }
-  return { sheet: { name: ws.name, rows }, formulas };
+  return { sheet: { name: ws.name, rows, dates }, formulas };
 }
 
 /** A formula's last result as the file holds it (dates as serial numbers). */
@@ -279,6 +283,15 @@ export async function readXlsx(path: string): Promise<XlsxWorkbook> {
 /** The sheets as `createHeadless` takes them. */
 export function engineSheets(wb: XlsxWorkbook): Record<string, RawCellContent[][]> {
   return Object.fromEntries(wb.sheets.map((s) => [s.name, s.rows]));
+}
+
+/**
+ * The date cells of each sheet ("row,col", 0-based) for the memory port, so a table read from
+ * the file knows which numbers were dates.
+ * @param wb - the workbook.
+ */
+export function dateCells(wb: XlsxWorkbook): Record<string, ReadonlySet<string>> {
+  return Object.fromEntries(wb.sheets.filter((s) => s.dates.size > 0).map((s) => [s.name, s.dates]));
 }
 
 /**

@@ -4,11 +4,16 @@
  * never a member called "45352". Date formats are recognised by their format codes (the codes of
  * Excel's built-in date and number formats, ECMA-376 Part 1, 18.8.30 numFmt; recalled from memory).
  */
+import { mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import ExcelJS from "exceljs";
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { OfficeWorkbookPort } from "../../src/workbook/office";
 import { isDateFormat } from "../../src/workbook/number-format";
 import { buildTakedown } from "../../src/workbook/takedown-build";
 import { FakeExcel } from "../workbook/office-fake";
+import { cli, digest } from "./cli-helpers";
 
 describe("isDateFormat", () => {
   it("recognises the built-in date and time formats", () => {
@@ -57,5 +62,30 @@ describe("a date used as a mark or a level (Excel host)", () => {
     // does not evaluate formulas, so its values are not checked here).
     expect(result.json?.members["B3"]).toBeDefined();
     expect(result.json?.members["45352"]).toBeUndefined();
+  });
+});
+
+describe("a date used as a mark or a level (.xlsx file, command line)", () => {
+  it("is a problem naming its cell, exit 1, and the input is unchanged", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "loadpath-dates-"));
+    const input = join(dir, "in.xlsx");
+    const wb = new ExcelJS.Workbook();
+    const zones = wb.addWorksheet("Zones");
+    ZONES.forEach((r, i) => r.forEach((v, j) => (zones.getCell(i + 1, j + 1).value = v)));
+    const members = wb.addWorksheet("Members");
+    MEMBERS.forEach((r, i) =>
+      r.forEach((v, j) => {
+        if (v !== "") members.getCell(i + 1, j + 1).value = v;
+      }),
+    );
+    // "3-1" typed into a General cell: Excel stores 1 March with a date format.
+    members.getCell("A2").value = new Date(Date.UTC(2024, 2, 1));
+    members.getCell("A2").numFmt = "d-mmm";
+    await wb.xlsx.writeFile(input);
+    const before = digest(input);
+    const run = await cli("takedown", input, "--units", "US");
+    expect(run.status).toBe(1);
+    expect(run.err.some((l) => /^Members!A2: Mark is a date/.test(l))).toBe(true);
+    expect(digest(input)).toBe(before);
   });
 });

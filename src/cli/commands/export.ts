@@ -20,7 +20,7 @@ import { GENERATED_MARKER } from "../../workbook/port";
 import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
 import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
 import { writeTextAtomically } from "../../workbook/files";
-import { cacheResults, engineSheets, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
+import { cacheResults, dateCells, engineSheets, writeXlsx, type XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, outputsRefused, parseVerbArgs, readInputWorkbook, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
 import { namesTables, runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, tableOrSheet, unitsHint, unitsShownByHeaders, type TakedownRun } from "../takedown-input";
 import { describeTakedownProblem } from "./takedown";
@@ -239,6 +239,7 @@ export async function exportHandoff(input: string, output: string | undefined, o
     sheets: engineSheets(wb),
     tables: wb.tables.map(({ name, sheet, ref }) => ({ name, sheet, ref })),
     names: wb.names,
+    dates: dateCells(wb),
     ...(options.distDir ? { distDir: options.distDir } : {}),
   });
   const specs = options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units));
