@@ -3,19 +3,13 @@
  * in for the memory port's import): the same exports, but engines are built from the bundle the
  * page registered (register.ts) instead of reading dist/ from disk, which a page cannot do.
  */
-import { HyperFormula, type ConfigParams } from "hyperformula";
-import { defineBooleans, NAMESPACE, toEngineContent, type LoadedBundle } from "../workbook/headless-plugin";
+import { HyperFormula } from "hyperformula";
+import { defineBooleans, HEADLESS_CONFIG, NAMESPACE, toEngineContent, type LoadedBundle } from "../workbook/headless-plugin";
 import type { Headless, HeadlessOptions } from "../workbook/headless";
 
 export * from "../workbook/headless-plugin";
 export type { Headless, HeadlessOptions } from "../workbook/headless";
 
-/**
- * The engine configuration used everywhere headless (HyperFormula under GPL-3.0): the same
- * settings as HEADLESS_CONFIG of headless.ts (full doubles, range arithmetic as Excel does),
- * which this page cannot import (it reads files from disk).
- */
-export const HEADLESS_CONFIG: Partial<ConfigParams> = { licenseKey: "gpl-v3", language: "enGB", smartRounding: false, useArrayArithmetic: true };
 
 let pageBundle: LoadedBundle | null = null;
 

@@ -11,6 +11,8 @@
  * the argument sizes (padded with ""); an exception becomes a #VALUE! with its message.
  */
 import {
+  AlwaysDense,
+  AlwaysSparse,
   ArraySize,
   CellError,
   EmptyValue,
@@ -19,6 +21,7 @@ import {
   FunctionPlugin,
   HyperFormula,
   SimpleRangeValue,
+  type ConfigParams,
   type FunctionPluginDefinition,
   type ImplementedFunctions,
   type RawCellContent,
@@ -400,3 +403,33 @@ export function callsLoadpath(formula: string): boolean {
 export function toEngineContent(content: RawCellContent): RawCellContent {
   return typeof content === "string" && content.startsWith("=") ? "=" + toEngineFormula(content.slice(1)) : content;
 }
+
+/**
+ * How the engine holds a sheet: as a grid (its default, fastest) unless at most one cell in a
+ * thousand of the sheet's extent holds anything; an empty sheet stays a grid as before.
+ */
+class GridUnlessNearlyBlank {
+  private readonly grid = new AlwaysDense();
+  private readonly sparse = new AlwaysSparse();
+  call(fill: number): ReturnType<AlwaysDense["call"]> | ReturnType<AlwaysSparse["call"]> {
+    return fill > 0 && fill <= 0.001 ? this.sparse.call() : this.grid.call();
+  }
+}
+
+/**
+ * The engine configuration used everywhere headless. Smart rounding is off: HyperFormula would
+ * round every output to 10 significant digits, while Excel keeps the full double in the cell
+ * (and in the file) and only rounds what it displays.
+ */
+export const HEADLESS_CONFIG: Partial<ConfigParams> = {
+  licenseKey: "gpl-v3",
+  language: "enGB",
+  smartRounding: false,
+  // Range arithmetic element by element, as Excel, LibreOffice Calc and Gnumeric evaluate the
+  // arguments of SUMPRODUCT: the hand-off takedown's formulas rely on it (src/engine/native).
+  useArrayArithmetic: true,
+  // A sheet is held as a grid unless almost all of its extent is blank (one stray value in
+  // XFD1048576 beside a small table): then only its filled cells are kept, or the grid of
+  // 1,048,576 x 16,384 cells would exhaust the heap. Real tables and generated sheets stay grids.
+  chooseAddressMappingPolicy: new GridUnlessNearlyBlank(),
+};

@@ -12,9 +12,11 @@
 import { existsSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { compileFunction } from "node:vm";
-import { AlwaysDense, AlwaysSparse, HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
+import { HyperFormula, type ConfigParams, type RawCellContent } from "hyperformula";
 import { createCustomFunctionsShim } from "./headless-shim";
-import { bundleMismatches, defineBooleans, NAMESPACE, registerBundle, toEngineContent, toEngineFormula, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
+
+export { HEADLESS_CONFIG } from "./headless-plugin";
+import { bundleMismatches, defineBooleans, HEADLESS_CONFIG, NAMESPACE, registerBundle, toEngineContent, toEngineFormula, type BundleFunction, type FunctionMetadata, type LoadedBundle } from "./headless-plugin";
 
 export * from "./headless-plugin";
 
@@ -95,36 +97,6 @@ export function registerLoadpathFunctions(distDir: string = defaultDistDir()): L
   registered = bundle;
   return bundle;
 }
-
-/**
- * How the engine holds a sheet: as a grid (its default, fastest) unless at most one cell in a
- * thousand of the sheet's extent holds anything; an empty sheet stays a grid as before.
- */
-class GridUnlessNearlyBlank {
-  private readonly grid = new AlwaysDense();
-  private readonly sparse = new AlwaysSparse();
-  call(fill: number): ReturnType<AlwaysDense["call"]> | ReturnType<AlwaysSparse["call"]> {
-    return fill > 0 && fill <= 0.001 ? this.sparse.call() : this.grid.call();
-  }
-}
-
-/**
- * The engine configuration used everywhere headless. Smart rounding is off: HyperFormula would
- * round every output to 10 significant digits, while Excel keeps the full double in the cell
- * (and in the file) and only rounds what it displays.
- */
-export const HEADLESS_CONFIG: Partial<ConfigParams> = {
-  licenseKey: "gpl-v3",
-  language: "enGB",
-  smartRounding: false,
-  // Range arithmetic element by element, as Excel, LibreOffice Calc and Gnumeric evaluate the
-  // arguments of SUMPRODUCT: the hand-off takedown's formulas rely on it (src/engine/native).
-  useArrayArithmetic: true,
-  // A sheet is held as a grid unless almost all of its extent is blank (one stray value in
-  // XFD1048576 beside a small table): then only its filled cells are kept, or the grid of
-  // 1,048,576 x 16,384 cells would exhaust the heap. Real tables and generated sheets stay grids.
-  chooseAddressMappingPolicy: new GridUnlessNearlyBlank(),
-};
 
 /** A HyperFormula instance with the LOADPATH functions, and the bundle they came from. */
 export interface Headless {
