@@ -62,10 +62,11 @@ describe("matchTable", () => {
     expect(matchTable(LOADS_SPEC, table([["Mark", "Kind", "Zone or case", "Magnitude (kip)"]]), "US").problems.map((p) => p.code)).toEqual(["unitMismatch"]);
   });
 
-  it("a repeated column is reported and the first one used", () => {
+  it("a repeated column is a problem naming both cells; neither is taken", () => {
     const { table: t, problems } = matchTable(ZONES_SPEC, table([["Zone", "D", "d (psf)"]]), "US");
-    expect(t.columns.D).toBe(1);
-    expect(problems.map((p) => [p.code, p.cell])).toEqual([["badValue", "C1"]]);
+    expect(t.columns.D).toBeUndefined();
+    expect(problems.map((p) => [p.code, p.cell])).toEqual([["ambiguousColumn", "B1"]]);
+    expect(problems[0]!.message).toMatch(/B1 "D" and C1 "d \(psf\)".*--map zones\.D=<column letter>/);
   });
 });
 
