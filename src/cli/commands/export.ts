@@ -163,7 +163,7 @@ export function takedownsOfRun(wb: XlsxWorkbook, run: TakedownRun): TakedownSpec
   const loads = run.loads ?? tableOrSheet(wb, "Loads");
   const sheet = run.sheet ?? DEFAULT_TAKEDOWN_SHEET;
   const units = run.units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]);
-  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), ...(run.headerRows ? { headerRows: run.headerRows } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
 }
 
 /** Why a LOADPATH formula outside a takedown sheet is written as its value in the hand-off file. */
