@@ -137,6 +137,12 @@ describe("a firm's template with a title block, group row, units row and word pa
     expect(existsSync(out)).toBe(false);
   });
 
+  it("End at named as End/Location (the README's example) reads the same column as the letter J", async () => {
+    const built = await buildOn(SHEETS, { mapping: { members: { ...MAPPING, "End at": "End/Location" } } });
+    expect(built.result.problems).toEqual([]);
+    checkByHand(built.result.json!);
+  });
+
   it("without the word parentheses told apart, start and end are never merged: `Supported by` is missing, not guessed", async () => {
     const built = await buildOn(SHEETS, { mapping: { members: { ...MAPPING, "End support": "Supported by" } } });
     expect(built.result.ok).toBe(false);
