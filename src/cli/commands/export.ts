@@ -27,8 +27,8 @@ import { describeTakedownProblem } from "./takedown";
 
 const USAGE = `Usage: loadpath export <in.xlsx> [-o <handoff.xlsx>] [--json <file>]
                      [--zones <name>] [--members <name>] [--loads <name>]
-                     [--map <table>.<Column>=<your header> ...] [--units US|SI]
-                     [--sheet <name>] [--replace]
+                     [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
+                     [--units US|SI] [--sheet <name>] [--replace]
 
 Writes a hand-off copy of the workbook that recalculates without the Loadpath add-in (Excel,
 LibreOffice Calc, Gnumeric): every takedown sheet is rebuilt with classic spreadsheet functions
