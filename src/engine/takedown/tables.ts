@@ -419,7 +419,13 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
     for (const [unit, at] of given) {
       if (unitFits(columnSpec.quantity, units, unit)) continue;
       problems.push(
-        problemAt(data, at, col, "unitMismatch", `${tableSpec.title} column ${cellName(data, h, col)} is in ${unit}, but a ${units} takedown reads ${columnSpec.header} in ${UNIT_NAMES[columnSpec.quantity][units]}.`),
+        problemAt(
+          data,
+          at,
+          col,
+          "unitMismatch",
+          `${tableSpec.title} column "${String(data.values[h]![col])}"${at === h ? "" : ` (units row)`} is in ${unit}, but a ${units} takedown reads ${columnSpec.header} in ${UNIT_NAMES[columnSpec.quantity][units]}.`,
+        ),
       );
     }
   }
