@@ -133,7 +133,7 @@ describe("a firm's template with a title block, group row, units row and word pa
     expect(r.status).toBe(1);
     const text = r.err.join("\n");
     expect(text).toMatch(/Members!H5: The Members table's End at could be H5 "Location \(ft\)" and J5 "Location \(ft\)"; none is taken/);
-    expect(text).toContain("--map members.End at=<column letter>");
+    expect(text).toContain("--map members.End at=H or --map members.End at=J");
     expect(existsSync(out)).toBe(false);
   });
 

@@ -243,12 +243,16 @@ function headerRowAt(data: TableData, h: number): HeaderRow {
   return { index: h, full: cells.map(foldHeader), parts: cells.map(splitHeader), groups: groupsOver(data, h, cells.length) };
 }
 
-/** Column index of a column letter ("J" -> 9), or undefined when the text is not one (1 to 3 letters). */
-function letterColumn(ref: string): number | undefined {
-  if (!/^[A-Za-z]{1,3}$/.test(ref)) return undefined;
+/**
+ * A column letter of the sheet: "J" -> 9, or "column J" (explicit: no header is compared with it);
+ * undefined when the text is not one (1 to 3 letters).
+ */
+function letterColumn(ref: string): { readonly col: number; readonly explicit: boolean } | undefined {
+  const m = /^(column\s+)?([A-Za-z]{1,3})$/i.exec(ref.trim());
+  if (!m) return undefined;
   let n = 0;
-  for (const ch of ref.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
-  return n - 1;
+  for (const ch of m[2]!.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
+  return { col: n - 1, explicit: m[1] !== undefined };
 }
 
 /**
@@ -282,10 +286,10 @@ function headerColumns(row: HeaderRow, ref: string): number[] {
 type Found = { readonly col: number } | { readonly none: true; readonly outside?: string } | { readonly several: readonly number[] };
 
 function find(data: TableData, row: HeaderRow, wanted: Wanted): Found {
-  const byHeader = headerColumns(row, wanted.ref);
   const letter = wanted.mapped ? letterColumn(wanted.ref) : undefined;
+  const byHeader = letter?.explicit ? [] : headerColumns(row, wanted.ref);
   if (letter !== undefined) {
-    const col = letter - data.left;
+    const col = letter.col - data.left;
     const width = data.values.reduce((w, r) => Math.max(w, r.length), row.full.length);
     const others = byHeader.filter((c) => c !== col);
     if (others.length > 0 && col >= 0 && col < width) return { several: [col, ...others] };
@@ -378,7 +382,8 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
   for (const [key, w] of wanted) {
     const found = find(data, row, w);
     const columnSpec = tableSpec.columns[key];
-    const mapHint = `--map ${tableSpec.title.toLowerCase()}.${columnSpec.header}=<column letter>`;
+    const mapOption = `--map ${tableSpec.title.toLowerCase()}.${columnSpec.header}=`;
+    const mapHint = `${mapOption}<column letter>`;
     if ("none" in found) {
       if (columnSpec.required || w.mapped) {
         const what = w.mapped ? `"${w.ref}" (mapped to ${columnSpec.header})` : `"${columnSpec.header}"`;
@@ -395,7 +400,7 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
           h,
           found.several[0]!,
           "ambiguousColumn",
-          `The ${tableSpec.title} table's ${columnSpec.header} could be ${cells}; none is taken. Name one: by its letter (${mapHint}), by its whole header, or as Group/Header under a group row.`,
+          `The ${tableSpec.title} table's ${columnSpec.header} could be ${cells}; none is taken. Name one by its column letter (${found.several.map((c) => mapOption + columnLetter(data.left + c)).join(" or ")}; "column ${columnLetter(data.left + found.several[0]!)}" when a header reads like a letter), by its whole header, or as Group/Header under a group row.`,
         ),
       );
       continue;

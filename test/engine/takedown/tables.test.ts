@@ -67,7 +67,7 @@ describe("matchTable", () => {
     const { table: t, problems } = matchTable(ZONES_SPEC, table([["Zone", "D", "d (psf)"]]), "US");
     expect(t.columns.D).toBeUndefined();
     expect(problems.map((p) => [p.code, p.cell])).toEqual([["ambiguousColumn", "B1"]]);
-    expect(problems[0]!.message).toMatch(/B1 "D" and C1 "d \(psf\)".*--map zones\.D=<column letter>/);
+    expect(problems[0]!.message).toMatch(/B1 "D" and C1 "d \(psf\)".*--map zones\.D=B or --map zones\.D=C/);
   });
 });
 
@@ -121,7 +121,7 @@ describe("headers whose parentheses are not units, references, ambiguity", () =>
       ["ambiguousColumn", "H2"],
       ["ambiguousColumn", "H2"],
     ]);
-    expect(m.problems[0]!.message).toMatch(/Start at could be H2 "Location \(ft\)" and J2 "Location \(ft\)"; none is taken.*--map members\.Start at=<column letter>/);
+    expect(m.problems[0]!.message).toMatch(/Start at could be H2 "Location \(ft\)" and J2 "Location \(ft\)"; none is taken.*--map members\.Start at=H or --map members\.Start at=J/);
   });
 
   it("without its parenthesis a word header is not found; the old unit reading would have merged start and end", () => {
@@ -136,6 +136,10 @@ describe("headers whose parentheses are not units, references, ambiguity", () =>
     // "D" names column D of the sheet and also the header "D" in column B.
     const zones = matchTable(ZONES_SPEC, table([["Zone", "D", "L", "X"]]), "US", { D: "D" });
     expect(zones.problems.map((p) => [p.code, p.message.match(/[A-Z]\d "[^"]*"/g)])).toEqual([["ambiguousColumn", ['D1 "X"', 'B1 "D"']]]);
+    // "column D" is the sheet's column only; the header "D" is then reached by its letter, B.
+    expect(matchTable(ZONES_SPEC, table([["Zone", "D", "L", "X"]]), "US", { D: "column D" }).table.columns).toMatchObject({ D: 3 });
+    const byB = matchTable(ZONES_SPEC, table([["Zone", "D", "L", "X"]]), "US", { D: "b" });
+    expect([byB.problems, byB.table.columns.D]).toEqual([[], 1]);
   });
 });
 
