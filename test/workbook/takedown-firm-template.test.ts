@@ -16,6 +16,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { cli, writeSheets } from "../report/helpers";
 import { buildOn, type Built } from "./takedown-helpers";
 import type { TakedownJson } from "../../src/workbook/takedown-api";
+import { parseHeaderRows, parseMappings } from "../../src/cli/takedown-input";
 
 const G = [null, null, null, null, null, null, "Start", null, "End", null];
 const H = ["Beam Mark", "Member", "Floor", "Length (ft)", "Area type", "Trib. Width (ft)", "Supported by (start)", "Location (ft)", "Supported by (end)", "Location (ft)"];
@@ -147,5 +148,16 @@ describe("a firm's template with a title block, group row, units row and word pa
     const built = await buildOn(SHEETS, { mapping: { members: { ...MAPPING, "End support": "Supported by" } } });
     expect(built.result.ok).toBe(false);
     expect(built.result.problems.map((p) => [p.code, `${p.sheet}!${p.cell}`])).toEqual([["missingColumn", "Members!A5"]]);
+  });
+
+  it("--header-row: a bare row is every table's, a table's own entry wins; --map keeps the reference as typed", async () => {
+    expect(parseHeaderRows(["5", "zones=2"])).toEqual({ headerRows: { zones: 2, members: 5, loads: 5 } });
+    expect(parseHeaderRows(["Members=7"])).toEqual({ headerRows: { members: 7 } });
+    for (const bad of ["0", "-3", "five", "beams=4", "2.5"]) expect(parseHeaderRows([bad])).toHaveProperty("error");
+    expect(parseMappings(["members.End at=End/Location", 'members.Start support="Supported by (start)"', "members.End at=J"])).toEqual({
+      mapping: { zones: {}, members: { "End at": "J", "Start support": "Supported by (start)" }, loads: {} },
+    });
+    const both = await cli("takedown", input, "--header-row", "5", "--header-row", "zones=2", ...MAP_ARGS);
+    expect(both.status).toBe(0);
   });
 });
