@@ -9,10 +9,11 @@ import type { ParseArgsConfig } from "node:util";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { tableRowCount, takedownMemoryProblem } from "../workbook/size-limits";
 import { buildTakedown } from "../workbook/takedown-build";
-import type { ColumnMapping, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
+import type { ColumnMapping, HeaderRows, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
 import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
 import { readInputWorkbook } from "./shared";
 import { unitFits } from "../engine/takedown/units";
+import { HEADER_SEARCH_ROWS } from "../engine/takedown/tables";
 
 /** What a takedown run needs besides the files. */
 export interface TakedownRun {
@@ -22,6 +23,8 @@ export interface TakedownRun {
   readonly members?: string;
   readonly loads?: string;
   readonly mapping?: ColumnMapping;
+  /** Header rows given with `--header-row` (1-based sheet rows). */
+  readonly headerRows?: HeaderRows;
   readonly sheet?: string;
   readonly replace?: boolean;
   /** Hand-off version: classic spreadsheet functions only. */
@@ -39,7 +42,9 @@ export interface TakedownFileResult {
 }
 
 /**
- * Parse `--map` entries: `members.Trib=Trib width` -> { members: { Trib: "Trib width" } }.
+ * Parse `--map` entries: `members.Trib=Trib width` -> { members: { Trib: "Trib width" } }. The
+ * value names the user's column by its header (`Supported by (end)`), by group and header under
+ * a group row (`End/Location`) or by the sheet's column letter (`J`).
  * @param entries - the option's values
  * @returns the mapping, or an error message naming the bad entry
  */
@@ -47,10 +52,30 @@ export function parseMappings(entries: readonly string[]): { mapping: ColumnMapp
   const out: Record<"zones" | "members" | "loads", Record<string, string>> = { zones: {}, members: {}, loads: {} };
   for (const e of entries) {
     const m = /^\s*(zones|members|loads)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
-    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header>, table zones, members or loads (e.g. members.Trib="Trib width").` };
+    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header, Group/Header or column letter>, table zones, members or loads (e.g. members.Trib="Trib width", members.End at=J).` };
     out[m[1]!.toLowerCase() as "zones" | "members" | "loads"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
   }
   return { mapping: out };
+}
+
+/**
+ * Parse `--header-row` entries: `5` (every table's header row is sheet row 5) or `members=5`
+ * (that table only; repeatable, a table's own entry wins over a bare number).
+ * @param entries - the option's values
+ * @returns the header rows, or an error message naming the bad entry
+ */
+export function parseHeaderRows(entries: readonly string[]): { headerRows: HeaderRows } | { error: string } {
+  let all: number | undefined;
+  const own: { zones?: number; members?: number; loads?: number } = {};
+  for (const e of entries) {
+    const m = /^\s*(?:(zones|members|loads)\s*=\s*)?(\d+)\s*$/i.exec(e);
+    const n = m ? Number(m[2]) : NaN;
+    if (!m || !Number.isSafeInteger(n) || n < 1) return { error: `--header-row "${e}": write the header row's sheet row number, 1 or more, for every table (--header-row 5) or one (--header-row members=5).` };
+    if (m[1] === undefined) all = n;
+    else own[m[1].toLowerCase() as "zones" | "members" | "loads"] = n;
+  }
+  if (all === undefined) return { headerRows: own };
+  return { headerRows: { zones: own.zones ?? all, members: own.members ?? all, loads: own.loads ?? all } };
 }
 
 /**
@@ -66,6 +91,7 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
     members: { type: "string" },
     loads: { type: "string" },
     map: { type: "string", multiple: true },
+    "header-row": { type: "string", multiple: true },
     sheet: { type: "string" },
     replace: { type: "boolean" },
   };
@@ -75,9 +101,14 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
 export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads <name>
                  Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
                  default: the table or sheet named Zones, Members and (if present) Loads
-  --map <table>.<Column>=<your header>
-                 a column whose header differs, e.g. --map members.Trib="Trib width"
-                 (repeatable; table zones, members or loads)
+  --map <table>.<Column>=<your header | Group/Header | column letter>
+                 a column whose header differs, e.g. --map members.Trib="Trib width",
+                 --map "members.End at=End/Location" (header under the group row's
+                 "End"), --map "members.End at=J" (sheet column J); repeatable; table
+                 zones, members or loads
+  --header-row [<table>=]<row>
+                 the header row's sheet row (1-based), for every table or one
+                 (--header-row members=5); default: found among the first 20 rows
   --units US|SI  US (ft, psf, plf, lb; results in kip) or SI (m, kPa, kN/m, kN); default:
                  the system the table headers' units show ("Span (m)"), else US
   --sheet <name> name of the generated sheet (default "Takedown")
@@ -120,6 +151,9 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
   const mapValues = Array.isArray(values.map) ? values.map.filter((v): v is string => typeof v === "string") : [];
   const maps = parseMappings(mapValues);
   if ("error" in maps) return { error: maps.error };
+  const rowValues = Array.isArray(values["header-row"]) ? values["header-row"].filter((v): v is string => typeof v === "string") : [];
+  const rows = parseHeaderRows(rowValues);
+  if ("error" in rows) return { error: rows.error };
   const sheet = stringOf(values.sheet);
   const sheetProblem = sheet === undefined ? undefined : sheetNameProblem(sheet);
   if (sheetProblem !== undefined) return { error: sheetProblem };
@@ -130,6 +164,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
     run: {
       ...(unitsText !== undefined ? { units: unitsText } : {}),
       mapping: maps.mapping,
+      ...(Object.keys(rows.headerRows).length > 0 ? { headerRows: rows.headerRows } : {}),
       ...(zones !== undefined ? { zones } : {}),
       ...(members !== undefined ? { members } : {}),
       ...(loads !== undefined ? { loads } : {}),
@@ -142,23 +177,28 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
 /** Whether the run names a table or a column mapping (rather than leaving everything to the defaults). */
 export function namesTables(run: TakedownRun): boolean {
   const mapped = run.mapping !== undefined && Object.values(run.mapping).some((m) => m !== undefined && Object.keys(m).length > 0);
-  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || mapped;
+  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || mapped || run.headerRows !== undefined;
 }
 
-/** Header cells of a table or sheet (the table's header row, else the first row of the sheet or range). */
+/**
+ * Cells that may carry a table's units: an Excel table's header row, else the first
+ * {@link HEADER_SEARCH_ROWS} rows of the sheet or range (the header row may sit below a title
+ * block, with a units row under it).
+ */
 export function headersOf(wb: XlsxWorkbook, name: string): string[] {
   const table = wb.tables.find((t) => t.name.toLowerCase() === name.toLowerCase());
   if (table) return [...table.headers];
   const sheetName = /^'?(.+?)'?!/.exec(name)?.[1]?.replace(/''/g, "'") ?? name;
   const sheet = wb.sheets.find((s) => s.name.toLowerCase() === sheetName.toLowerCase());
-  return (sheet?.rows[0] ?? []).map((v) => (typeof v === "string" ? v.replace(/^'/, "") : String(v ?? "")));
+  return (sheet?.rows.slice(0, HEADER_SEARCH_ROWS) ?? []).flat().map((v) => (typeof v === "string" ? v.replace(/^'/, "") : ""));
 }
 
 const QUANTITIES = ["length", "areaLoad", "lineLoad", "force"] as const;
 
 /**
- * The unit system the units in the tables' headers show (`Span (m)`, `D (psf)`): SI or US when
- * every recognised unit belongs to one system; undefined when they show none or both.
+ * The unit system the units in the tables' headers show (`Span (m)`, `D (psf)`, a units row's
+ * `(m)` or `[kPa]`): SI or US when every recognised unit belongs to one system; undefined when
+ * they show none or both. Bare words ("m") are not read as units here: a level may be called M.
  * @param wb - the workbook read
  * @param tables - names of the tables (or sheets) to look at
  */
@@ -166,7 +206,7 @@ export function unitsShownByHeaders(wb: XlsxWorkbook, tables: readonly string[])
   const shown = new Set<UnitSystem>();
   for (const t of tables) {
     for (const h of headersOf(wb, t)) {
-      const unit = /\(([^()]*)\)\s*$/.exec(h)?.[1];
+      const unit = /\(([^()]*)\)\s*$/.exec(h)?.[1] ?? /^\s*\[([^[\]]*)\]\s*$/.exec(h)?.[1];
       if (unit === undefined) continue;
       for (const system of ["US", "SI"] as const) if (QUANTITIES.some((q) => unitFits(q, system, unit))) shown.add(system);
     }
@@ -214,6 +254,7 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
     ...(loads !== undefined ? { loads } : {}),
     units: run.units ?? headerUnits ?? "US",
     ...(run.mapping ? { mapping: run.mapping } : {}),
+    ...(run.headerRows ? { headerRows: run.headerRows } : {}),
     ...(run.sheet ? { sheetName: run.sheet } : {}),
     replaceForeign: run.replace === true,
     ...(run.native ? { native: true } : {}),

@@ -69,6 +69,7 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
     ...(loads ? { loads } : {}),
     units: options.units,
     ...(options.mapping ? { mapping: options.mapping } : {}),
+    ...(options.headerRows ? { headerRows: options.headerRows } : {}),
     sheet,
     title: sheetTitle(options),
     ...(options.native ? { writer: createNativeWriter({ sheet }) } : {}),

@@ -9,6 +9,7 @@ import type {
   MemberResult,
   Problem,
   ProblemCode,
+  HeaderRows,
   SheetPlan,
   Summary,
   TableMapping,
@@ -23,8 +24,11 @@ import type { WorkbookPort } from "./port";
 export type { LoadCase, Problem, ProblemCode, UnitSystem };
 export type { ColumnResult as ColumnResultJson, MemberResult as MemberResultJson, Summary as TakedownSummary, TakedownResults as TakedownJson };
 
-/** Column mapping per table (canonical header -> the user's header); see the engine's TableMapping. */
+/** Column mapping per table (canonical header -> the user's reference); see the engine's TableMapping. */
 export type ColumnMapping = TableMapping;
+
+/** Header row per table (1-based sheet row) where the user gives it; see the engine's HeaderRows. */
+export type { HeaderRows };
 
 export interface TakedownOptions {
   /** Table name, sheet name (used range) or "Sheet!A1:G20" of each input table. */
@@ -33,6 +37,8 @@ export interface TakedownOptions {
   readonly loads?: string;
   readonly units: UnitSystem;
   readonly mapping?: ColumnMapping;
+  /** Header row of a table (1-based sheet row); a table left out has its header row found. */
+  readonly headerRows?: HeaderRows;
   /** Name of the generated sheet (default "Takedown"). */
   readonly sheetName?: string;
   /** Replace a same-named sheet the add-in did not create (only after asking the user). */

@@ -197,6 +197,7 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
     ...(inputs.loads ? { loads: inputs.loads } : {}),
     units: options.units,
     ...(options.mapping ? { mapping: options.mapping } : {}),
+    ...(options.headerRows ? { headerRows: options.headerRows } : {}),
     sheet,
     title,
     ...(writer ? { writer } : {}),

@@ -27,8 +27,8 @@ import { describeTakedownProblem } from "./takedown";
 
 const USAGE = `Usage: loadpath export <in.xlsx> [-o <handoff.xlsx>] [--json <file>]
                      [--zones <name>] [--members <name>] [--loads <name>]
-                     [--map <table>.<Column>=<your header> ...] [--units US|SI]
-                     [--sheet <name>] [--replace]
+                     [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
+                     [--units US|SI] [--sheet <name>] [--replace]
 
 Writes a hand-off copy of the workbook that recalculates without the Loadpath add-in (Excel,
 LibreOffice Calc, Gnumeric): every takedown sheet is rebuilt with classic spreadsheet functions
@@ -163,7 +163,7 @@ export function takedownsOfRun(wb: XlsxWorkbook, run: TakedownRun): TakedownSpec
   const loads = run.loads ?? tableOrSheet(wb, "Loads");
   const sheet = run.sheet ?? DEFAULT_TAKEDOWN_SHEET;
   const units = run.units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]);
-  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), ...(run.headerRows ? { headerRows: run.headerRows } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
 }
 
 /** Why a LOADPATH formula outside a takedown sheet is written as its value in the hand-off file. */

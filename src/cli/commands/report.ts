@@ -18,8 +18,8 @@ import { describeTakedownProblem } from "./takedown";
 
 const USAGE = `Usage: loadpath report <in.xlsx> [-o <report.html>] [--only <mark,mark,...> | --all]
                        [--zones <name>] [--members <name>] [--loads <name>]
-                       [--map <table>.<Column>=<your header> ...] [--units US|SI]
-                       [--sheet <name>] [--replace] [--project <name>] [--date <text>]
+                       [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
+                       [--units US|SI] [--sheet <name>] [--replace] [--project <name>] [--date <text>]
 
 Writes a printable calculation report of the workbook's load takedown: a title block (project,
 engineer, date, units, code editions), the assumptions, a section for each chosen member (its

@@ -22,8 +22,8 @@ export { parseMappings, takedownOfFile, type TakedownFileResult, type TakedownRu
 
 const USAGE = `Usage: loadpath takedown <in.xlsx> [-o <out.xlsx>] [--json <result.json>] [--native]
                          [--zones <name>] [--members <name>] [--loads <name>]
-                         [--map <table>.<Column>=<your header> ...] [--units US|SI]
-                         [--sheet <name>] [--replace]
+                         [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
+                         [--units US|SI] [--sheet <name>] [--replace]
 
 Builds the gravity load takedown of the workbook's member tables: every member in takedown order
 with its loads, reactions, shear and moment, tributary area and live load reduction; every

@@ -18,7 +18,7 @@ export { CAUTION, planSheet, type PlanCell, type SheetPlan, type MemberPlace } f
 export { readResults, byMark, summarize, gravityCombos, type TakedownResults, type Summary, type CellReader, type MemberResult, type ColumnResult } from "./results";
 export { scanResults, scanJson } from "./scan";
 export { isErrorValue } from "./cells";
-export { matchTable, splitHeader, ZONES_SPEC, MEMBERS_SPEC, LOADS_SPEC, type MatchedTable } from "./tables";
+export { matchTable, splitHeader, foldHeader, HEADER_SEARCH_ROWS, ZONES_SPEC, MEMBERS_SPEC, LOADS_SPEC, type MatchedTable } from "./tables";
 export { readModel, type TakedownModel, type Member, type MemberType, type Zone } from "./model";
 export { checkPath, type Delivery } from "./validate";
 export { sortGraph, type SortResult, type Edge } from "./graph";
@@ -27,12 +27,20 @@ export { layoutOf, channelsOf, COL, type Layout, type Channel } from "./layout";
 
 /**
  * Column mapping for tables whose headers differ from the defaults of docs/interface.md section 2:
- * canonical header (e.g. "Trib") -> the header the user's table has (e.g. "Trib width").
+ * canonical header (e.g. "Trib") -> the user's reference: a header ("Trib width"), a group and
+ * header under a group row ("End/Location") or a column letter of the sheet ("J").
  */
 export interface TableMapping {
   readonly zones?: Readonly<Record<string, string>>;
   readonly members?: Readonly<Record<string, string>>;
   readonly loads?: Readonly<Record<string, string>>;
+}
+
+/** The header row of each table, as a 1-based sheet row, where the user gives it (else it is found). */
+export interface HeaderRows {
+  readonly zones?: number;
+  readonly members?: number;
+  readonly loads?: number;
 }
 
 /** Input of {@link planTakedown}. */
@@ -42,6 +50,8 @@ export interface TakedownInput {
   readonly loads?: TableData;
   readonly units: UnitSystem;
   readonly mapping?: TableMapping;
+  /** Header rows given by the user (1-based sheet rows); a table left out has its header row found. */
+  readonly headerRows?: HeaderRows;
   /** Name of the generated sheet. */
   readonly sheet: string;
   /** First line of the generated sheet (starts with the generated-sheet marker). */
@@ -50,7 +60,7 @@ export interface TakedownInput {
 }
 
 /** Problems that stop a build: the tables cannot be read as meant. */
-export const FATAL_CODES: ReadonlySet<Problem["code"]> = new Set(["missingTable", "missingColumn", "unitMismatch", "foreignSheet", "emptyTable"]);
+export const FATAL_CODES: ReadonlySet<Problem["code"]> = new Set(["missingTable", "missingColumn", "ambiguousColumn", "unitMismatch", "foreignSheet", "emptyTable"]);
 
 /**
  * Most load rows a member's loads argument may have: the LOADPATH beam functions accept at most
@@ -109,17 +119,17 @@ export interface TakedownPlan {
  * @param input - the tables as read (header row first), unit system, mapping and sheet name
  */
 export function planTakedown(input: TakedownInput): TakedownPlan {
-  const zones = matchTable(ZONES_SPEC, input.zones, input.units, input.mapping?.zones);
-  const members = matchTable(MEMBERS_SPEC, input.members, input.units, input.mapping?.members);
-  const loads = input.loads ? matchTable(LOADS_SPEC, input.loads, input.units, input.mapping?.loads) : undefined;
+  const zones = matchTable(ZONES_SPEC, input.zones, input.units, input.mapping?.zones, input.headerRows?.zones);
+  const members = matchTable(MEMBERS_SPEC, input.members, input.units, input.mapping?.members, input.headerRows?.members);
+  const loads = input.loads ? matchTable(LOADS_SPEC, input.loads, input.units, input.mapping?.loads, input.headerRows?.loads) : undefined;
   const headerProblems = [...zones.problems, ...members.problems, ...(loads?.problems ?? [])];
   if (members.table.columns.zone !== undefined && members.table.columns.trib === undefined && !members.problems.some((p) => p.code === "missingColumn")) {
     const d = input.members;
-    headerProblems.push({ code: "missingColumn", message: "The Members table has a Zone column but no Trib column: zone loads need a trib width.", sheet: d.sheet, cell: a1(d.top, d.left) });
+    headerProblems.push({ code: "missingColumn", message: "The Members table has a Zone column but no Trib column: zone loads need a trib width.", sheet: d.sheet, cell: a1(d.top + members.table.headerRow, d.left) });
   }
   if (!headerProblems.some((p) => FATAL_CODES.has(p.code)) && members.table.rows.length === 0) {
     const d = input.members;
-    headerProblems.push({ code: "emptyTable", message: `The Members table ("${d.sheet}") has no members: no row below its header holds a value.`, sheet: d.sheet, cell: a1(d.top, d.left) });
+    headerProblems.push({ code: "emptyTable", message: `The Members table ("${d.sheet}") has no members: no row below its header holds a value.`, sheet: d.sheet, cell: a1(d.top + members.table.headerRow, d.left) });
   }
   if (headerProblems.some((p) => FATAL_CODES.has(p.code))) return { problems: headerProblems, plan: null, model: null, levels: [] };
   const read = readModel({ zones: zones.table, members: members.table, ...(loads ? { loads: loads.table } : {}) }, input.units);

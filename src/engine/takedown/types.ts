@@ -41,6 +41,8 @@ export type ProblemCode =
   | "columnWithoutBase"
   | "unitMismatch"
   | "missingColumn"
+  /** Two columns fit one needed column (or one column was given for two): none is taken. */
+  | "ambiguousColumn"
   | "missingTable"
   | "badValue"
   | "unknownZone"

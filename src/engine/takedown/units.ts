@@ -58,3 +58,24 @@ export function unitFits(quantity: Quantity, units: UnitSystem, unit: string): b
   const words = unit.split(/,|;|\s+or\s+|\s+\/\s+/i).map(normaliseUnit).filter((w) => w !== "");
   return words.length > 0 && words.every((w) => accepts("lineLoad", units, w) || accepts("force", units, w));
 }
+
+/**
+ * Units recognised in a header without being read by either system (kips, inches, millimetres,
+ * stresses): a header "Load (kip)" is a load in kip, hence a unit mismatch, not a header named
+ * "load (kip)".
+ */
+const OTHER_UNITS: readonly string[] = ["kip", "kips", "k", "klf", "kip/ft", "k/ft", "ksf", "kip/ft2", "kips/ft", "in", "inch", "inches", "mm", "cm", "km", "n", "n/m", "n/m2", "pa", "psi", "ksi", "mpa", "gpa", "kn/mm", "kg", "kg/m", "kg/m2", "lb/in", "pli"];
+
+/**
+ * Whether the text in a header's parentheses (or a units-row cell) is a unit the tool knows: any
+ * spelling of a length, area load, line load or force of either system, a "line or point" pair
+ * ("plf or lb"), or one of the other units it recognises (kip, in, mm, ...).
+ * @param unit - the text as typed, without its brackets
+ */
+export function isKnownUnit(unit: string): boolean {
+  const n = normaliseUnit(unit);
+  if (n === "") return false;
+  if (OTHER_UNITS.includes(n)) return true;
+  const systems: readonly UnitSystem[] = ["US", "SI"];
+  return systems.some((s) => (["length", "areaLoad", "lineLoad", "force", "lineOrForce"] as const).some((q) => unitFits(q, s, unit)));
+}
