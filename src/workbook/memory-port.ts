@@ -10,6 +10,7 @@
  */
 import type ExcelJS from "exceljs";
 import { DetailedCellError, type RawCellContent, type SimpleCellAddress } from "hyperformula";
+import { HEADER_SEARCH_ROWS } from "../engine/takedown/tables";
 import { cellAddress, parseCell, sheetRef } from "./a1";
 import { HyperFormula } from "hyperformula";
 import { createHeadless, defaultDistDir, defineBooleans, excelErrorText, HEADLESS_CONFIG, NAMESPACE, registerLoadpathFunctions, toFileFormula, type Headless, type HeadlessOptions } from "./headless";
@@ -167,9 +168,11 @@ export class MemoryWorkbookPort implements WorkbookPort {
   }
 
   /**
-   * The table a sheet holds, by its real extent ("A1:A1" for an empty sheet): its header row is
-   * the first row with a value, its columns run from that row's first to its last non-blank cell,
-   * and its rows down to the last row with a value in those columns. Values outside (a note to the
+   * The table a sheet holds, by its real extent ("A1:A1" for an empty sheet): it starts at the
+   * first row with a value (a title block above the headers stays in, for the takedown to find
+   * the header row), its columns run from the first to the last non-blank cell of the fullest of
+   * the first HEADER_SEARCH_ROWS rows (the header row; the earliest on a tie), and its rows down to
+   * the last row with a value in those columns. Values outside (a note to the
    * right, one stray value in XFD1048576) do not widen it. Only the cells that hold something are
    * visited, never the whole grid.
    */
@@ -183,10 +186,16 @@ export class MemoryWorkbookPort implements WorkbookPort {
     if (filled.length === 0) return "A1:A1";
     let top = Number.POSITIVE_INFINITY;
     for (const c of filled) top = Math.min(top, c.row);
+    // The columns are the filled span of the fullest row among the first rows (the header row,
+    // below any title block, group or units row: the takedown looks for it in as many rows).
+    const counts = new Map<number, number>();
+    for (const c of filled) if (c.row < top + HEADER_SEARCH_ROWS) counts.set(c.row, (counts.get(c.row) ?? 0) + 1);
+    let headerRow = top;
+    for (const [row, n] of counts) if (n > counts.get(headerRow)! || (n === counts.get(headerRow)! && row < headerRow)) headerRow = row;
     let left = Number.POSITIVE_INFINITY;
     let right = -1;
     for (const c of filled) {
-      if (c.row !== top) continue;
+      if (c.row !== headerRow) continue;
       left = Math.min(left, c.col);
       right = Math.max(right, c.col);
     }
