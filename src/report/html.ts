@@ -5,7 +5,7 @@
  * Numbers in tables carry their full value in `data-value`, so a reader (or a test) can check
  * the printed figure against the computed one.
  */
-import { escapeXml } from "../taskpane/diagrams/escape";
+import { escapeXml } from "../drawings/escape";
 
 /** Attribute values; `undefined` or `false` leaves the attribute out. */
 export type Attrs = Readonly<Record<string, string | number | boolean | undefined>>;

@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import type ExcelJS from "exceljs";
-import { denoise } from "../../taskpane/diagrams/format";
+import { denoise } from "../../drawings/format";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../shared";
 import { gravityLoadsPart } from "./demo-gravity-loads";

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { formatLength, formatValue, MINUS, parseDrawnNumber } from "../../../src/taskpane/diagrams/format";
+import { formatLength, formatValue, MINUS, parseDrawnNumber } from "../../src/drawings/format";
 
 describe("formatValue", () => {
   it("prints three significant figures with a true minus sign", () => {

@@ -3,7 +3,7 @@
  * for fixed ends, the reactions as arrows with their values and units, and the marks of what
  * holds the member up. The member axis is y = 0.
  */
-import type { BeamSolution } from "../../engine/beam/types";
+import type { BeamSolution } from "../engine/beam/types";
 import { truncate } from "./escape";
 import { formatValue } from "./format";
 import { type Block, type Frame, xOf } from "./frame";
