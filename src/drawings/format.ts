@@ -18,13 +18,17 @@ function withMinus(s: string): string {
 
 /**
  * Format a result (force, moment, deflection) to `significant` figures; whole numbers of 1000
- * and more keep all their digits. Values that round to zero print as "0".
+ * and more keep all their digits. Values that round to zero print as "0", and so does round-off:
+ * a value within 1e-9 of `reference` (the largest magnitude it is read against, e.g. the largest
+ * reaction of the member) is floating-point noise, never printed as 1.2e-14.
  * @param value - the number to print
  * @param significant - significant figures (default 3)
- * @example formatValue(96.5667) === "96.6"; formatValue(-10.58) === "−10.6"; formatValue(1234.5) === "1235"
+ * @param reference - the magnitude the value is read against (0: none)
+ * @example formatValue(96.5667) === "96.6"; formatValue(-10.58) === "−10.6"; formatValue(1.2e-14, 3, 30) === "0"
  */
-export function formatValue(value: number, significant = 3): string {
+export function formatValue(value: number, significant = 3, reference = 0): string {
   if (!Number.isFinite(value)) return "?";
+  if (Number.isFinite(reference) && Math.abs(value) <= 1e-9 * Math.abs(reference)) return "0";
   return formatClean(denoise(value), significant);
 }
 

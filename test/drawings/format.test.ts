@@ -112,3 +112,14 @@ describe("formatDifference (the load balance)", () => {
     expect(formatDifference(1e-5, [1000], 6)).toBe("0.000010");
   });
 });
+
+describe("formatValue against the magnitude it is read with", () => {
+  it("prints round-off as 0, never in exponent notation, and keeps real small values", () => {
+    // A reaction of 1.2e-14 kip beside one of 30 kip is floating-point noise of an exact 0.
+    expect(formatValue(1.2e-14, 3, 30)).toBe("0");
+    expect(formatValue(-2.9e-8, 3, 30)).toBe("0");
+    expect(formatValue(3.1e-8, 3, 30)).toBe("3.10e-8"); // above 1e-9 x 30: shown, it is not round-off
+    expect(formatValue(0.0123, 3, 30)).toBe("0.0123");
+    expect(formatValue(1.2e-14)).toBe("1.20e-14"); // without a reference nothing is hidden
+  });
+});
