@@ -2,14 +2,14 @@
  * The drawings of a member in the report, filled from the member's loads as the takedown sheet
  * computed them (src/engine/takedown/member-loads.ts): the member sheet (free-body, shear and
  * moment diagrams) of one load case or factored combination, and the load-path tree of one case.
- * The SVG itself comes from the pane's pure renderers (src/taskpane/diagrams).
+ * The SVG itself comes from the shared pure renderers (src/drawings), the same ones the pane uses.
  */
 import type { AppliedLoad, MemberLoads, MemberSupport } from "../engine/takedown/member-loads";
 import { isFlexural, type MemberType } from "../engine/takedown/model";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
-import { formatLength } from "../taskpane/diagrams/format";
-import type { LoadPathBranch, LoadPathTree } from "../taskpane/diagrams/load-path-types";
-import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type MemberDrawing } from "../taskpane/diagrams/types";
+import { formatLength } from "../drawings/format";
+import type { LoadPathBranch, LoadPathTree } from "../drawings/load-path-types";
+import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type MemberDrawing } from "../drawings/types";
 
 /** Drawing units of a takedown's unit system. */
 export function drawingUnits(units: UnitSystem): DrawingUnits {

@@ -5,7 +5,8 @@
  * Numbers in tables carry their full value in `data-value`, so a reader (or a test) can check
  * the printed figure against the computed one.
  */
-import { escapeXml } from "../taskpane/diagrams/escape";
+import { escapeXml } from "../drawings/escape";
+import { DECIMALS, fixedDecimals, MINUS as DRAWN_MINUS, type Quantity } from "../drawings/format";
 
 /** Attribute values; `undefined` or `false` leaves the attribute out. */
 export type Attrs = Readonly<Record<string, string | number | boolean | undefined>>;
@@ -19,7 +20,7 @@ export interface Html {
 export type Child = string | Html | null | undefined | false;
 
 /** The minus sign of printed numbers (U+2212). */
-export const MINUS = "\u2212";
+export const MINUS = DRAWN_MINUS;
 
 function attrText(attrs: Attrs): string {
   let out = "";
@@ -65,17 +66,14 @@ export function join(parts: readonly Child[]): Html {
  * @param decimals - decimals shown
  */
 export function fixed(value: number, decimals: number): string {
-  if (!Number.isFinite(value)) return "?";
-  const s = value.toFixed(decimals);
-  if (/^-0(\.0*)?$/.test(s)) return s.slice(1);
-  return s.startsWith("-") ? MINUS + s.slice(1) : s;
+  return fixedDecimals(value, decimals);
 }
 
-/** How many decimals each kind of number is printed with. */
-export const DECIMALS = { force: 2, moment: 2, line: 3, length: 2, area: 1, factor: 3, count: 0 } as const;
+/** How many decimals each kind of number is printed with: the shared formatter's (src/drawings/format.ts). */
+export { DECIMALS };
 
 /** A kind of number in {@link DECIMALS}. */
-export type NumberKind = keyof typeof DECIMALS;
+export type NumberKind = Quantity;
 
 /**
  * A table cell holding a number: printed with the kind's decimals, full value in `data-value`.

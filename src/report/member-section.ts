@@ -12,13 +12,13 @@ import { isFlexural } from "../engine/takedown/model";
 import type { ColumnResult, MemberResult } from "../engine/takedown/results";
 import type { LoadCase } from "../engine/takedown/types";
 import { RESULT_UNITS } from "../engine/takedown/units";
-import { renderLoadPath } from "../taskpane/diagrams/load-path";
-import { renderMemberSheet } from "../taskpane/diagrams/sheet";
+import { renderLoadPath } from "../drawings/load-path";
+import { renderMemberSheet } from "../drawings/sheet";
 import type { TakedownRecord } from "./collect";
 import { caseMagnitudes, loadPathTree, memberDrawing, supportLabel } from "./drawings";
 import type { CombinationTerm } from "../engine/loads/combinations";
 import { beamLoadsOf, governingCombination, gravityCombinations, shortLabel, type FactoredMember } from "./factored";
-import { el, join, length, numCell, raw, type Child, type Html } from "./html";
+import { DECIMALS, el, fixed, join, length, numCell, raw, type Child, type Html } from "./html";
 import { SOURCES } from "./text";
 
 /** Id of a member's section (never derived from the mark, which is the user's text). */
@@ -193,7 +193,7 @@ function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number):
   if (tree) figures.push(figure(renderLoadPath(tree), "load-path"));
   const liveNote =
     f !== null && m.liveReduction !== null && f.terms.some((t) => t.load === "L") && m.liveReduction.llrFactor < 1
-      ? el("p", { class: "note" }, `In the factored combination the reducible live load is multiplied by L/Lo = ${m.liveReduction.llrFactor.toFixed(3)} (${SOURCES.llr}).`)
+      ? el("p", { class: "note" }, `In the factored combination the reducible live load is multiplied by L/Lo = ${fixed(m.liveReduction.llrFactor, DECIMALS.factor)} (${SOURCES.llr}).`)
       : null;
   return el(
     "section",

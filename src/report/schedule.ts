@@ -7,7 +7,8 @@
 import type { MemberLoads } from "../engine/takedown/member-loads";
 import { RESULT_UNITS } from "../engine/takedown/units";
 import type { TakedownRecord } from "./collect";
-import { el, fixed, numCell, type Html } from "./html";
+import { formatDifference } from "../drawings/format";
+import { DECIMALS, el, numCell, type Html } from "./html";
 import { governingOf } from "./member-section";
 
 /**
@@ -120,7 +121,7 @@ export function balanceTable(record: TakedownRecord): Html {
       el("th", { scope: "row" }, c),
       numCell(b.applied, "force", { "data-field": "applied" }),
       numCell(b.supports, "force", { "data-field": "supports" }),
-      el("td", { class: "num", "data-value": String(diff) }, diff === 0 ? "0" : fixed(diff, 2) === "0.00" || fixed(diff, 2) === "\u22120.00" ? diff.toExponential(1).replace("-", "\u2212") : fixed(diff, 2)),
+      el("td", { class: "num", "data-value": String(diff) }, formatDifference(diff, [b.applied, b.supports], DECIMALS.force)),
     );
   });
   return el(

@@ -1,5 +1,5 @@
 /**
- * The load-path drawing's input (src/taskpane/diagrams/load-path-types.ts) filled from a built
+ * The load-path drawing's input (src/drawings/load-path-types.ts) filled from a built
  * takedown: upstream from the member's loads as the sheet computed them (the reactions it
  * receives, with the members they come from, and its zone loads and Loads-table rows as leaves),
  * downstream from the takedown's results (each support's own reactions, a column's cumulative
@@ -10,7 +10,8 @@ import type { Delivery, Member, TakedownModel } from "../engine/takedown";
 import { isFlexural } from "../engine/takedown/model";
 import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase } from "../engine/takedown/types";
-import type { LoadPathBranch, LoadPathTree } from "./diagrams/load-path-types";
+import type { LoadPathBranch, LoadPathTree } from "../drawings/load-path-types";
+import { formatLength } from "../drawings/format";
 import type { TakedownJson } from "../workbook/takedown-api";
 import { combine, drawingUnitsOf, originText, type CaseChoice } from "./member-drawing";
 
@@ -26,9 +27,8 @@ export interface LoadPathSource {
   readonly loadsOf: (mark: string) => MemberLoads | null;
 }
 
-function fmt(n: number): string {
-  return Number.isInteger(n) ? String(n) : String(Number(n.toPrecision(3)));
-}
+/** A length as the report prints it (the shared formatter): at most two decimals, no exponent. */
+const fmt = formatLength;
 
 function byMark(model: TakedownModel): Map<string, Member> {
   const out = new Map<string, Member>();

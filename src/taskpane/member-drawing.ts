@@ -1,6 +1,6 @@
 /**
  * From a member's loads as the takedown sheet computed them (src/engine/takedown/member-loads.ts)
- * to the drawing's input (src/taskpane/diagrams): one load case, or a load combination whose
+ * to the drawing's input (src/drawings): one load case, or a load combination whose
  * factors multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
  * src/engine/loads/combinations.ts). Pure: no DOM, no workbook.
  */
@@ -9,8 +9,9 @@ import { isFlexural } from "../engine/takedown/model";
 import type { ChannelKey } from "../engine/takedown/layout";
 import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
-import { solveDrawing } from "./diagrams/model";
-import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "./diagrams/types";
+import { solveDrawing } from "../drawings/model";
+import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "../drawings/types";
+import { formatLength } from "../drawings/format";
 
 /** A load case or a combination the pane can draw. */
 export interface CaseChoice {
@@ -100,9 +101,8 @@ export function combinedReaction(member: MemberLoads, choice: CaseChoice, k: num
   return combine(per, channelFactors(member, choice));
 }
 
-function fmt(n: number): string {
-  return Number.isInteger(n) ? String(n) : String(Number(n.toPrecision(4)));
-}
+/** A length as the report prints it (the shared formatter): at most two decimals, no exponent. */
+const fmt = formatLength;
 
 /** A zone row's name: the zone, with the extra line loads it includes ("OFFICE + wD", or "wD" alone). */
 export function zoneText(zone: string | null, extras: readonly LoadCase[]): string {

@@ -62,6 +62,29 @@ describe("loadpath report", () => {
     expect(loaders(html)).toEqual([]);
   });
 
+  it("prints numbers for people: no exponent in the load balance, symmetric corner columns alike", async () => {
+    const out = join(dir, "office-numbers.html");
+    const r = await cli("report", SAMPLE_US, "-o", out, "--only", "C1A-Roof");
+    expect(r.status).toBe(0);
+    const html = readFileSync(out, "utf8");
+    /** The visible text of the cells of a row (full values in data-value attributes left aside). */
+    const cells = (row: string) => [...row.matchAll(/<t[dh]\b[^>]*>([^<]*)<\/t[dh]>/g)].map((m) => m[1]!);
+    const balance = [...html.matchAll(/<tr data-role="balance" data-case="([^"]+)">(.*?)<\/tr>/g)];
+    expect(balance.map((m) => m[1])).toEqual(["D", "L", "Lr", "S"]);
+    // Sample (a)'s D and L differences are round-off of 1.1e-13 and -5.7e-14 kip (printed 1.1e-13 before).
+    for (const [, , row] of balance) {
+      expect(cells(row!).join(" ")).not.toMatch(/e[-+\u2212]/);
+      expect(cells(row!).at(-1)).toBe("0.00");
+    }
+    // The roof corner columns (sample-workbooks/make-buildings.ts: lines 1 and 3 by rows A and C)
+    // carry the same loads by symmetry; their rows print alike but for the mark.
+    const column = (mark: string) => cells(html.match(new RegExp(`<tr data-role="column" data-mark="${mark}">(.*?)</tr>`))![1]!).slice(1);
+    const corners = ["C1A-Roof", "C3A-Roof", "C1C-Roof", "C3C-Roof"].map((m) => column(m).join(" | "));
+    expect(corners[0]).toContain("3.75");
+    expect(new Set(corners).size).toBe(1);
+    expect(new Set(["C1A-3", "C3A-3", "C3C-3"].map((m) => column(m).join(" | "))).size).toBe(1);
+  });
+
   it("details every beam, girder and column by default and with --all", async () => {
     const a = join(dir, "all.html");
     const b = join(dir, "default.html");

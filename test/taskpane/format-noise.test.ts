@@ -4,7 +4,7 @@
  * practice), so a drawing never shows 19.8 at one end and 19.9 at the other.
  */
 import { describe, expect, it } from "vitest";
-import { formatLength, formatValue } from "../../src/taskpane/diagrams/format";
+import { formatLength, formatValue } from "../../src/drawings/format";
 
 describe("drawn numbers and round-off", () => {
   it("prints values equal to 12 significant figures alike", () => {

@@ -11,9 +11,9 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { memberLoads } from "../../src/engine/takedown/member-loads";
 import type { CellValue } from "../../src/engine/takedown";
-import { renderLoadPath, renderMemberSheet } from "../../src/taskpane/diagrams";
-import { solveDrawing } from "../../src/taskpane/diagrams/model";
-import { allElements, parseSvg } from "./diagrams/svg-query";
+import { renderLoadPath, renderMemberSheet } from "../../src/drawings";
+import { solveDrawing } from "../../src/drawings/model";
+import { allElements, parseSvg } from "../drawings/svg-query";
 import { loadPathOf, upstreamMarks } from "../../src/taskpane/load-path-of";
 import { caseChoicesOf, choiceOnMember, combinationChoicesOf, governingChoice, largestMoment, memberDrawingOf, type CaseChoice } from "../../src/taskpane/member-drawing";
 import { memberAt, selectionIndexOf } from "../../src/taskpane/selection-map";

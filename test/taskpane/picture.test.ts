@@ -1,13 +1,13 @@
 /**
  * The pane's pictures: a drawing given a fixed pixel size for the image decoder, and the member
  * sheet and load path stacked into one SVG for copying or inserting. Checked by a strict XML
- * parse of the result (test/taskpane/diagrams/svg-query.ts) on drawings of invented members.
+ * parse of the result (test/drawings/svg-query.ts) on drawings of invented members.
  */
 import { describe, expect, it } from "vitest";
-import { renderLoadPath, renderMemberSheet } from "../../src/taskpane/diagrams";
+import { renderLoadPath, renderMemberSheet } from "../../src/drawings";
 import { sizedSvg, stackSvgs } from "../../src/taskpane/picture";
-import { CANTILEVER, HOSTILE_MARK, OVERHANG_BEAM } from "./diagrams/fixtures";
-import { allElements, byRole, parseSvg } from "./diagrams/svg-query";
+import { CANTILEVER, HOSTILE_MARK, OVERHANG_BEAM } from "../drawings/fixtures";
+import { allElements, byRole, parseSvg } from "../drawings/svg-query";
 
 function viewBoxOf(markup: string): number[] {
   return parseSvg(markup).getAttribute("viewBox")!.split(/\s+/).map(Number);

@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import type ExcelJS from "exceljs";
-import { denoise } from "../../taskpane/diagrams/format";
+import { fixedDecimals } from "../../drawings/format";
 import { cacheResults, evaluateWorkbook, problemAddress, readXlsx, writeXlsx } from "../../workbook/xlsx";
 import { EXIT, type CliIO, type Command } from "../shared";
 import { gravityLoadsPart } from "./demo-gravity-loads";
@@ -50,7 +50,7 @@ function cellValue(cell: ExcelJS.Cell): unknown {
 
 function fmt(v: unknown, digits = 2): string {
   // Round-off is removed first, so two equal results print alike (13.754999999999 and 13.755 as 13.76).
-  if (typeof v === "number") return denoise(v).toFixed(digits);
+  if (typeof v === "number") return fixedDecimals(v, digits, "-");
   if (v === null || v === undefined || v === "") return "";
   if (typeof v === "object" && v !== null && "error" in v) return String((v as { error: string }).error);
   return String(v);

@@ -15,6 +15,7 @@ import { writeTextAtomically } from "../../workbook/files";
 import { cacheResults, writeXlsx } from "../../workbook/xlsx";
 import type { Problem, TakedownBuildResult, TakedownJson, UnitSystem } from "../../workbook/takedown-api";
 import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
+import { fixedDecimals, formatDifference, formatQuantity, type Quantity } from "../../drawings/format";
 import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
 
@@ -48,8 +49,9 @@ export function describeTakedownProblem(p: Problem): string {
   return `${sheetRef(p.sheet)}!${p.cell}: ${p.message}`;
 }
 
-function fmt(x: number | undefined, digits = 1): string {
-  return x === undefined || !Number.isFinite(x) ? "-" : x.toFixed(digits);
+/** A number for the plain-text tables: the shared formatter's decimals per quantity, a hyphen minus. */
+function fmt(x: number | undefined, kind: Quantity): string {
+  return x === undefined || !Number.isFinite(x) ? "-" : formatQuantity(x, kind, "-");
 }
 
 /**
@@ -69,28 +71,32 @@ export function columnLines(json: TakedownJson): string[] {
       [
         mark.padEnd(14),
         c.level.padEnd(7),
-        ...cases.map((k) => fmt(c.cumulative[k]).padStart(10)),
-        fmt(c.tributaryArea, 0).padStart(10),
+        ...cases.map((k) => fmt(c.cumulative[k], "force").padStart(10)),
+        fmt(c.tributaryArea, "area").padStart(10),
         String(c.floors).padStart(6),
-        fmt(c.llrFactor, 3).padStart(6),
-        fmt(c.reducedLive).padStart(11),
-        fmt(governing).padStart(10),
+        fmt(c.llrFactor, "factor").padStart(6),
+        fmt(c.reducedLive, "force").padStart(11),
+        fmt(governing, "force").padStart(10),
       ].join(" "),
     );
   }
   return lines;
 }
 
+/** The load balance's totals and difference to 0.001 kip or kN: a check, shown finer than the tables. */
+const BALANCE_DECIMALS = 3;
+
 /**
  * Lines of the load balance: per case, the total applied load and the total of the foundation
- * and wall reactions.
+ * and wall reactions, and their difference (round-off below 1e-9 of the load prints as 0.000).
  * @param json - the takedown's results
  */
 export function balanceLines(json: TakedownJson): string[] {
   const force = json.units === "US" ? "kip" : "kN";
   const lines = [`${"Case".padEnd(5)} ${`Applied ${force}`.padStart(14)} ${`Supports ${force}`.padStart(15)} ${"Difference".padStart(12)}`];
   for (const [c, b] of Object.entries(json.balance)) {
-    lines.push(`${c.padEnd(5)} ${fmt(b.applied, 3).padStart(14)} ${fmt(b.supports, 3).padStart(15)} ${(b.applied - b.supports).toExponential(1).padStart(12)}`);
+    const difference = formatDifference(b.applied - b.supports, [b.applied, b.supports], BALANCE_DECIMALS, "-");
+    lines.push(`${c.padEnd(5)} ${fixedDecimals(b.applied, BALANCE_DECIMALS, "-").padStart(14)} ${fixedDecimals(b.supports, BALANCE_DECIMALS, "-").padStart(15)} ${difference.padStart(12)}`);
   }
   return lines;
 }

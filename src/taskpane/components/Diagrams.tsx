@@ -7,7 +7,7 @@
  */
 import * as React from "react";
 import { Button, Field, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
-import { renderLoadPath, renderMemberSheet } from "../diagrams";
+import { renderLoadPath, renderMemberSheet } from "../../drawings";
 import { loadPathOf, upstreamMarks } from "../load-path-of";
 import { caseChoicesOf, choiceLabel, choiceOnMember, combinationChoicesOf, governingChoice, memberDrawingOf, type CaseChoice } from "../member-drawing";
 import { base64Of, copyDrawing, pngOf, stackSvgs } from "../picture";

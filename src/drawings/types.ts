@@ -4,7 +4,7 @@
  * engine needs. Sign conventions are those of docs/interface.md section 1: loads down +, reactions
  * up +, moments counter-clockwise +, bending moment sagging +, deflection down +.
  */
-import type { SupportType } from "../../engine/beam/types";
+import type { SupportType } from "../engine/beam/types";
 
 /** Unit labels printed on a drawing, and the one conversion a drawing needs (deflection). */
 export interface DrawingUnits {

@@ -3,8 +3,8 @@
  * downstream below it, deeper levels indented, large trees cut with a count, cyclic input safe.
  */
 import { describe, expect, it } from "vitest";
-import { MAX_ROWS_PER_SIDE, renderLoadPath } from "../../../src/taskpane/diagrams/load-path";
-import type { LoadPathBranch, LoadPathTree } from "../../../src/taskpane/diagrams/load-path-types";
+import { MAX_ROWS_PER_SIDE, renderLoadPath } from "../../src/drawings/load-path";
+import type { LoadPathBranch, LoadPathTree } from "../../src/drawings/load-path-types";
 import { GIRDER_PATH } from "./fixtures";
 import { allElements, byRole, numAttr, parseSvg, type SvgElement, texts } from "./svg-query";
 

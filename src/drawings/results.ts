@@ -3,7 +3,7 @@
  * through its critical points, the exact extremes it reports, zero crossings refined on its
  * exact functions.
  */
-import type { BeamSolution, Extreme } from "../../engine/beam/types";
+import type { BeamSolution, Extreme } from "../engine/beam/types";
 import { type CurvePoint, sampleCurve, type SidedFunction, zeroCrossings } from "./curves";
 import { distinctPositions } from "./frame";
 import type { PanelExtreme, PanelSpec } from "./panels";

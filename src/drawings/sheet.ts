@@ -3,7 +3,7 @@
  * when EI is known) on one horizontal scale, and a legend of the sign conventions. One
  * self-contained SVG string, usable in the pane and in an HTML report.
  */
-import type { BeamSolution } from "../../engine/beam/types";
+import type { BeamSolution } from "../engine/beam/types";
 import { truncate } from "./escape";
 import { formatLength, formatValue } from "./format";
 import { type Block, memberFrame, SHEET_WIDTH } from "./frame";

@@ -5,9 +5,9 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { renderMemberSheet } from "../../../src/taskpane/diagrams/sheet";
-import { type MemberDrawing, SI_UNITS, US_UNITS } from "../../../src/taskpane/diagrams/types";
-import { PALETTE } from "../../../src/taskpane/diagrams/svg";
+import { renderMemberSheet } from "../../src/drawings/sheet";
+import { type MemberDrawing, SI_UNITS, US_UNITS } from "../../src/drawings/types";
+import { PALETTE } from "../../src/drawings/svg";
 import { allElements, byRole, numAttr, parseSvg, type SvgElement } from "./svg-query";
 
 const span = 12;

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { overlaps, placeLabels } from "../../../src/taskpane/diagrams/place";
+import { overlaps, placeLabels } from "../../src/drawings/place";
 
 describe("placeLabels", () => {
   const request = fc.record({

@@ -2,9 +2,9 @@
  * From a drawing's input to the beam engine's model and solution. The drawings show only
  * numbers that come out of this solution.
  */
-import type { Result } from "../../engine/errors";
-import { solveBeam } from "../../engine/beam/index";
-import type { BeamLoad, BeamModel, BeamSolution } from "../../engine/beam/types";
+import type { Result } from "../engine/errors";
+import { solveBeam } from "../engine/beam/index";
+import type { BeamLoad, BeamModel, BeamSolution } from "../engine/beam/types";
 import type { MemberDrawing } from "./types";
 
 /**

@@ -4,9 +4,9 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { escapeXml, truncate } from "../../../src/taskpane/diagrams/escape";
-import { renderLoadPath } from "../../../src/taskpane/diagrams/load-path";
-import { renderMemberSheet } from "../../../src/taskpane/diagrams/sheet";
+import { escapeXml, truncate } from "../../src/drawings/escape";
+import { renderLoadPath } from "../../src/drawings/load-path";
+import { renderMemberSheet } from "../../src/drawings/sheet";
 import { GIRDER_PATH, HOSTILE_DRAWING, HOSTILE_MARK, REVIEW_SHEETS } from "./fixtures";
 import { allElements, byRole, parseSvg, type SvgElement, texts } from "./svg-query";
 

@@ -3,7 +3,7 @@
  * for fixed ends, the reactions as arrows with their values and units, and the marks of what
  * holds the member up. The member axis is y = 0.
  */
-import type { BeamSolution } from "../../engine/beam/types";
+import type { BeamSolution } from "../engine/beam/types";
 import { truncate } from "./escape";
 import { formatValue } from "./format";
 import { type Block, type Frame, xOf } from "./frame";
@@ -55,17 +55,23 @@ function coupleArc(x: number, m: number, side: "left" | "right" | "inside"): str
   return arcArrow(x, 0, COUPLE_RADIUS, from, to, m > 0, PALETTE.reaction, 1.4);
 }
 
-function reactionLabel(s: DrawnSupport, i: number, r: number, m: number, drawing: MemberDrawing): LabelLine[] {
+/** The magnitudes a member's reactions are read against: round-off below 1e-9 of them prints as 0. */
+interface Scale {
+  readonly force: number;
+  readonly moment: number;
+}
+
+function reactionLabel(s: DrawnSupport, i: number, r: number, m: number, drawing: MemberDrawing, scale: Scale): LabelLine[] {
   const lines: LabelLine[] = [
     {
-      text: `${formatValue(r)} ${drawing.units.force}`,
+      text: `${formatValue(r, 3, scale.force)} ${drawing.units.force}`,
       style: { size: FONT.label, bold: true, fill: PALETTE.reaction },
       attrs: { "data-role": "reaction", "data-index": i, "data-x": s.x, "data-value": r },
     },
   ];
   if (s.type === "fixed") {
     lines.push({
-      text: `${formatValue(Math.abs(m))} ${drawing.units.moment} ${m >= 0 ? "ccw" : "cw"}`,
+      text: `${formatValue(Math.abs(m), 3, scale.moment)} ${drawing.units.moment} ${m >= 0 ? "ccw" : "cw"}`,
       style: { size: FONT.small, fill: PALETTE.reaction },
       attrs: { "data-role": "reaction-moment", "data-index": i, "data-x": s.x, "data-value": m },
     });
@@ -87,6 +93,8 @@ export function drawSupports(drawing: MemberDrawing, solution: BeamSolution, fra
   const labels: LabelLine[][] = [];
   const anchors: number[] = [];
   let top = -WALL_HALF;
+  const largest = Math.max(0, ...solution.reactions.map(Math.abs).filter(Number.isFinite));
+  const scale: Scale = { force: largest, moment: Math.max(largest * drawing.span, ...solution.reactionMoments.map(Math.abs).filter(Number.isFinite)) };
   drawing.supports.forEach((s, i) => {
     const x = xOf(frame, s.x);
     const side = endSide(s, drawing.span);
@@ -96,7 +104,7 @@ export function drawSupports(drawing: MemberDrawing, solution: BeamSolution, fra
     const couple = s.type === "fixed" && m !== 0 ? coupleArc(x, m, side) : "";
     if (couple !== "") top = Math.min(top, -COUPLE_RADIUS - 4);
     body += el("g", { "data-role": "support", "data-index": i, "data-x": s.x, "data-type": s.type, "data-draw-x": x }, symbol(s, x, side), force, couple);
-    labels.push(reactionLabel(s, i, r, m, drawing));
+    labels.push(reactionLabel(s, i, r, m, drawing, scale));
     anchors.push(x);
   });
   const order = anchors.map((_, i) => i).sort((a, b) => (anchors[a] as number) - (anchors[b] as number));

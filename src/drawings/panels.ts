@@ -73,10 +73,15 @@ function scaleOf(spec: PanelSpec): (v: number) => number {
   return (v: number) => ((hi - drawn(v)) / (hi - lo)) * h;
 }
 
+/** The largest magnitude on a panel: an extreme within 1e-9 of it is round-off and prints as 0. */
+function panelMagnitude(spec: PanelSpec): number {
+  return Math.max(0, ...spec.curve.map((p) => Math.abs(p.v)), ...spec.extremes.map((e) => Math.abs(e.value)));
+}
+
 function extremeLabel(e: PanelExtreme, spec: PanelSpec): LabelLine[] {
   const attrs: Attrs = { "data-role": "extreme", "data-kind": e.kind, "data-value": e.value, "data-x": e.x };
   return [
-    { text: `${formatValue(e.value)} ${spec.unit}`, style: { size: FONT.label, bold: true }, attrs },
+    { text: `${formatValue(e.value, 3, panelMagnitude(spec))} ${spec.unit}`, style: { size: FONT.label, bold: true }, attrs },
     { text: `at ${formatLength(e.x)} ${spec.lengthUnit}`, style: { size: FONT.small, fill: PALETTE.muted }, attrs: { "data-role": "extreme-at", "data-x": e.x } },
   ];
 }

@@ -2,19 +2,19 @@
  * The drawings in a real browser (Debian's Chromium through playwright-core, no download): at
  * the pane's narrowest width (320 px) no text is clipped, no two texts overlap and every text is
  * no wider than the layout assumed, with Arial-metric fonts and with DejaVu Sans (the fallback
- * of a bare Linux machine). Screenshots go to test-output/diagrams/ for review by eye.
+ * of a bare Linux machine). Screenshots go to test-output/drawings/ for review by eye.
  */
 import { mkdirSync } from "node:fs";
 import { resolve } from "node:path";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { renderLoadPath } from "../../../src/taskpane/diagrams/load-path";
-import { textWidth } from "../../../src/taskpane/diagrams/metrics";
-import { renderMemberSheet } from "../../../src/taskpane/diagrams/sheet";
-import { launch } from "../../browser/harness";
+import { renderLoadPath } from "../../src/drawings/load-path";
+import { textWidth } from "../../src/drawings/metrics";
+import { renderMemberSheet } from "../../src/drawings/sheet";
+import { launch } from "../browser/harness";
 import { GIRDER_PATH, OVERHANG_BEAM_EI, REVIEW_SHEETS } from "./fixtures";
 
-const OUT = resolve(__dirname, "..", "..", "..", "test-output", "diagrams");
+const OUT = resolve(__dirname, "..", "..", "test-output", "drawings");
 const PANE_WIDTH = 320;
 
 const FONTS = {

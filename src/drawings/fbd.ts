@@ -2,7 +2,7 @@
  * The free-body diagram of one member, to scale along its length: loads above, supports and
  * reactions below, and a dimension line with every position that matters.
  */
-import type { BeamSolution } from "../../engine/beam/types";
+import type { BeamSolution } from "../engine/beam/types";
 import { formatLength } from "./format";
 import { type Block, distinctPositions, type Frame, xOf } from "./frame";
 import { drawLoads } from "./fbd-loads";

@@ -5,9 +5,9 @@
  * structure is checked, not its pixels: labels present, positions to scale.
  */
 import { describe, expect, it } from "vitest";
-import { renderMemberSheet } from "../../../src/taskpane/diagrams/sheet";
-import type { MemberDrawing } from "../../../src/taskpane/diagrams/types";
-import { flexuralRigidityKipFt2, US_UNITS } from "../../../src/taskpane/diagrams/types";
+import { renderMemberSheet } from "../../src/drawings/sheet";
+import type { MemberDrawing } from "../../src/drawings/types";
+import { flexuralRigidityKipFt2, US_UNITS } from "../../src/drawings/types";
 import { CANTILEVER, OVERHANG_BEAM, OVERHANG_BEAM_EI } from "./fixtures";
 import { allElements, byRole, numAttr, parseSvg, type SvgElement, texts } from "./svg-query";
 

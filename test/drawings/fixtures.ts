@@ -2,8 +2,8 @@
  * Invented members drawn by the diagram tests and rendered for review in Chromium. Marks and
  * numbers are made up; none describes a real building.
  */
-import type { LoadPathBranch, LoadPathTree } from "../../../src/taskpane/diagrams/load-path-types";
-import { flexuralRigidityKipFt2, flexuralRigidityKnM2, type MemberDrawing, SI_UNITS, US_UNITS } from "../../../src/taskpane/diagrams/types";
+import type { LoadPathBranch, LoadPathTree } from "../../src/drawings/load-path-types";
+import { flexuralRigidityKipFt2, flexuralRigidityKnM2, type MemberDrawing, SI_UNITS, US_UNITS } from "../../src/drawings/types";
 
 /** A mark that would run a script if it were ever written as markup. */
 export const HOSTILE_MARK = "<img src=x onerror=alert(1)>";
