@@ -132,14 +132,19 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
     const { page } = await open();
     const s = sample();
     const headers = findTable(s, "members").headers;
-    const other = headers.find((h) => /^level/i.test(h))!;
+    // Two columns swapped (KLL read from the wD column and wD from the KLL column): each column is
+    // still given once, so the matching is not ambiguous and must come back as chosen.
+    const wd = headers.find((h) => /^wD/i.test(h))!;
+    const kll = headers.find((h) => /^KLL/i.test(h))!;
     await page.getByRole("button", { name: /^Members:/ }).click();
-    await page.selectOption('[data-column="members:KLL"]', other);
+    await page.selectOption('[data-column="members:KLL"]', wd);
+    await page.selectOption('[data-column="members:wD"]', kll);
     await page.getByRole("radio", { name: /^SI/ }).check();
     await page.reload();
     await page.waitForSelector('[data-testid="build"]');
     await page.getByRole("button", { name: /^Members:/ }).click();
-    expect(await page.inputValue('[data-column="members:KLL"]')).toBe(other);
+    expect(await page.inputValue('[data-column="members:KLL"]')).toBe(wd);
+    expect(await page.inputValue('[data-column="members:wD"]')).toBe(kll);
     expect(await page.getByRole("radio", { name: /^SI/ }).isChecked()).toBe(true);
     await page.evaluate(() => localStorage.clear());
     await page.close();
