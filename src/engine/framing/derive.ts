@@ -1,0 +1,221 @@
+/**
+ * The derivation: a read plan -> member rows in the shape of the Members table, bearings where a
+ * member crosses one of higher rank, tributary pieces per member, and problems with their cells.
+ * Pure and independent of row order: points are snapped into nodes first and every list is
+ * processed sorted by mark.
+ */
+import { a1 } from "../a1";
+import type { CellRef } from "../takedown/types";
+import { crossing, dist, interiorPoint, project, strictlyInside } from "./geometry";
+import { oneWayDeck, type DeckMember } from "./oneway";
+import { snapPoints } from "./snap";
+import { twoWayPanel } from "./twoway";
+import { RANK, type Derivation, type DerivedBearing, type DerivedMember, type DeriveOptions, type FramingProblem, type FramingProblemCode, type Plan, type PlanMember, type Point, type TributaryPiece } from "./types";
+
+/** Default snapping tolerance: 1/16 in in ft (US) or 1.5 mm in m (SI). */
+export const DEFAULT_TOLERANCE = { US: 1 / 16 / 12, SI: 0.0015 } as const;
+
+function problem(cell: CellRef, code: FramingProblemCode, message: string, mark?: string): FramingProblem {
+  return { code, message, sheet: cell.sheet, cell: a1(cell.row, cell.col), ...(mark !== undefined ? { mark } : {}) };
+}
+
+const spanning = (m: PlanMember): boolean => m.type !== "column" && m.type !== "foundation";
+const byMark = (a: { mark: string }, b: { mark: string }): number => (a.mark < b.mark ? -1 : a.mark > b.mark ? 1 : 0);
+const samePoint = (a: Point, b: Point): boolean => a.x === b.x && a.y === b.y;
+
+/** Adjacent pieces of one deck that continue each other (same slope, meeting widths) become one. */
+function mergePieces(list: TributaryPiece[], len: number): TributaryPiece[] {
+  list.sort((a, b) => a.from - b.from || (a.area < b.area ? -1 : a.area > b.area ? 1 : 0));
+  const out: TributaryPiece[] = [];
+  const eps = 1e-9 * Math.max(1, len);
+  for (const p of list) {
+    const q = out[out.length - 1];
+    if (q && q.area === p.area && q.zone === p.zone && Math.abs(q.to - p.from) <= eps && Math.abs(q.endWidth - p.width) <= eps) {
+      const s1 = (q.endWidth - q.width) / (q.to - q.from);
+      const s2 = (p.endWidth - p.width) / (p.to - p.from);
+      if (Math.abs(s1 - s2) <= 1e-9 * Math.max(1, Math.abs(s1), Math.abs(s2))) {
+        out[out.length - 1] = { ...q, to: p.to, endWidth: p.endWidth };
+        continue;
+      }
+    }
+    out.push(p);
+  }
+  return out;
+}
+
+/**
+ * Derive member rows, bearings and tributary pieces from a plan.
+ * @param plan - the plan as read (readPlan)
+ * @param options - snapping tolerance (ft or m) and unit system
+ */
+export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
+  const tol = options.tolerance ?? DEFAULT_TOLERANCE[options.units ?? "US"];
+  const problems: FramingProblem[] = [];
+  const sorted = [...plan.members].sort(byMark);
+  const nodes = snapPoints(sorted.flatMap((m) => [m.p1, m.p2]), tol);
+  const snapped = sorted.map((m, i) => ({ ...m, p1: nodes[2 * i]!, p2: nodes[2 * i + 1]! }));
+  const levelIndex = new Map(plan.levels.map((l, i) => [l.name, i]));
+  const byLevel = new Map<string, typeof snapped>();
+  for (const m of snapped) {
+    const list = byLevel.get(m.level) ?? [];
+    list.push(m);
+    byLevel.set(m.level, list);
+  }
+  const valid = new Set<string>();
+  for (const m of snapped) {
+    if (spanning(m) && samePoint(m.p1, m.p2)) problems.push(problem(m.cells.x2, "zeroLength", `${m.mark}: its two ends are one point (within ${tol}).`, m.mark));
+    else valid.add(m.mark);
+  }
+  const spanOn = (level: string): typeof snapped => (byLevel.get(level) ?? []).filter((m) => spanning(m) && valid.has(m.mark));
+  const columnsOn = (level: string): typeof snapped => (byLevel.get(level) ?? []).filter((m) => m.type === "column");
+  const foundations = snapped.filter((m) => m.type === "foundation");
+
+  // pairs on one level: duplicate columns, collinear overlaps, crossings
+  const bearings: DerivedBearing[] = [];
+  for (const [level] of byLevel) {
+    const cols = columnsOn(level);
+    for (let i = 0; i < cols.length; i++)
+      for (let j = i + 1; j < cols.length; j++)
+        if (samePoint(cols[i]!.p1, cols[j]!.p1)) problems.push(problem(cols[j]!.cells.mark, "duplicateColumn", `Columns ${cols[i]!.mark} and ${cols[j]!.mark} of level ${level} stand at one point.`, cols[j]!.mark));
+    const sp = spanOn(level);
+    for (let i = 0; i < sp.length; i++) {
+      const a = sp[i]!;
+      for (let j = i + 1; j < sp.length; j++) {
+        const b = sp[j]!;
+        if (Math.max(b.p1.x, b.p2.x) < Math.min(a.p1.x, a.p2.x) - tol || Math.min(b.p1.x, b.p2.x) > Math.max(a.p1.x, a.p2.x) + tol) continue;
+        if (Math.max(b.p1.y, b.p2.y) < Math.min(a.p1.y, a.p2.y) - tol || Math.min(b.p1.y, b.p2.y) > Math.max(a.p1.y, a.p2.y) + tol) continue;
+        const q1 = project(b.p1, a.p1, a.p2);
+        const q2 = project(b.p2, a.p1, a.p2);
+        if (q1.off <= tol && q2.off <= tol) {
+          const overlap = Math.min(q1.length, Math.max(q1.along, q2.along)) - Math.max(0, Math.min(q1.along, q2.along));
+          if (overlap > tol) problems.push(problem(b.cells.mark, "collinearOverlap", `${a.mark} and ${b.mark} lie on one line and overlap by ${overlap}: their load would be counted twice.`, b.mark));
+          continue;
+        }
+        const x = crossing(a.p1, a.p2, b.p1, b.p2);
+        if (!x || x.s <= tol || x.s >= q1.length - tol || x.t <= tol || x.t >= dist(b.p1, b.p2) - tol) continue;
+        if (RANK[a.type] === RANK[b.type]) {
+          problems.push(problem(b.cells.mark, "equalRankCrossing", `${a.mark} and ${b.mark} (both ${a.type}s) cross: which bears on which is not known; end one on the other or change a Type.`, b.mark));
+          continue;
+        }
+        const [low, high, atLow, atHigh] = RANK[a.type] < RANK[b.type] ? [a, b, x.s, x.t] : [b, a, x.t, x.s];
+        bearings.push({ mark: low.mark, support: high.mark, at: atLow, supportAt: atHigh });
+      }
+    }
+  }
+
+  /** The member of `candidates` of highest rank (above `above`) through p, ties by mark. */
+  const through = (p: Point, candidates: typeof snapped, above: number, self?: string): { mark: string; at: number } | null => {
+    let best: { mark: string; at: number; rank: number } | null = null;
+    for (const m of candidates) {
+      if (m.mark === self || RANK[m.type] <= above) continue;
+      const pr = project(p, m.p1, m.p2);
+      if (pr.off > tol || pr.along < -tol || pr.along > pr.length + tol) continue;
+      if (!best || RANK[m.type] > best.rank) best = { mark: m.mark, at: Math.min(pr.length, Math.max(0, pr.along)), rank: RANK[m.type] };
+    }
+    return best;
+  };
+
+  const out: DerivedMember[] = [];
+  const added: DerivedMember[] = [];
+  const rowOf = (m: (typeof snapped)[number], span: number | null, start: { mark: string; at: number | null } | null, end: { mark: string; at: number | null } | null): DerivedMember => ({
+    mark: m.mark,
+    type: m.type,
+    level: m.level,
+    span,
+    startSupport: start?.mark ?? null,
+    startAt: start?.at ?? null,
+    endSupport: end?.mark ?? null,
+    endAt: end?.at ?? null,
+    x1: m.p1.x,
+    y1: m.p1.y,
+    x2: m.p2.x,
+    y2: m.p2.y,
+    extra: m.extra,
+    tributary: [],
+    tributaryArea: 0,
+    source: m.cells.mark,
+  });
+  /** What stands under a point of a level: column below, else a member of the level below (transfer), else a foundation. */
+  const base = (m: (typeof snapped)[number], p: Point, cell: CellRef): { mark: string; at: number | null } => {
+    const li = levelIndex.get(m.level);
+    const below = li !== undefined && li > 0 ? plan.levels[li - 1]!.name : null;
+    if (below !== null) {
+      const col = columnsOn(below).find((c) => samePoint(c.p1, p));
+      if (col) return { mark: col.mark, at: null };
+      const t = through(p, spanOn(below), 0);
+      if (t) return t;
+    }
+    const f = foundations.find((c) => samePoint(c.p1, p));
+    if (f) return { mark: f.mark, at: null };
+    const mark = `F-${m.mark}`;
+    if (!added.some((a) => a.mark === mark)) added.push({ ...rowOf({ ...m, mark, type: "foundation", p1: p, p2: p, extra: {} }, null, null, null), source: cell });
+    return { mark, at: null };
+  };
+  for (const m of snapped) {
+    if (!valid.has(m.mark) || m.type === "foundation") {
+      if (m.type === "foundation") out.push(rowOf(m, null, null, null));
+      continue;
+    }
+    if (m.type === "column") {
+      const li = levelIndex.get(m.level);
+      const height = li !== undefined && li > 0 ? plan.levels[li]!.elevation - plan.levels[li - 1]!.elevation : null;
+      out.push(rowOf(m, height, base(m, m.p1, m.cells.mark), null));
+      continue;
+    }
+    if (m.type === "wall") {
+      const s = base(m, m.p1, m.cells.x1);
+      const e = base(m, m.p2, m.cells.x2);
+      out.push(rowOf(m, dist(m.p1, m.p2), s, e));
+      continue;
+    }
+    const ends = ([[m.p1, m.cells.x1, "start"], [m.p2, m.cells.x2, "end"]] as const).map(([p, cell, which]) => {
+      const col = columnsOn(m.level).find((c) => samePoint(c.p1, p));
+      if (col) return { mark: col.mark, at: null };
+      const t = through(p, spanOn(m.level), RANK[m.type], m.mark);
+      if (t) return t;
+      problems.push(problem(cell, "endOnNothing", `The ${which} of ${m.mark} (${p.x}, ${p.y}) is on no column of level ${m.level} and no member of higher rank than a ${m.type}.`, m.mark));
+      return null;
+    });
+    out.push(rowOf(m, dist(m.p1, m.p2), ends[0]!, ends[1]!));
+  }
+
+  // decks, level by level, in order of area name
+  const pieces = new Map<string, TributaryPiece[]>();
+  const decks = [...plan.decks].sort((a, b) => (a.area < b.area ? -1 : a.area > b.area ? 1 : 0));
+  const loaded = decks.filter((d) => d.kind !== "opening");
+  for (let i = 0; i < loaded.length; i++)
+    for (let j = i + 1; j < loaded.length; j++) {
+      const a = loaded[i]!, b = loaded[j]!;
+      if (a.level !== b.level) continue;
+      const edgesCross = a.corners.some((p, k) => b.corners.some((q, l) => {
+        const x = crossing(p, a.corners[(k + 1) % a.corners.length]!, q, b.corners[(l + 1) % b.corners.length]!);
+        return x !== null && x.s > tol && x.t > tol && x.s < dist(p, a.corners[(k + 1) % a.corners.length]!) - tol && x.t < dist(q, b.corners[(l + 1) % b.corners.length]!) - tol;
+      }));
+      if (edgesCross || strictlyInside(interiorPoint(a.corners), b.corners, tol) || strictlyInside(interiorPoint(b.corners), a.corners, tol))
+        problems.push(problem(b.cells.shape, "overlappingDecks", `Decks ${a.area} and ${b.area} of level ${a.level} overlap: their load would be counted twice.`));
+    }
+  const add = (from: ReadonlyMap<string, TributaryPiece[]>): void => {
+    for (const [mark, list] of from) pieces.set(mark, [...(pieces.get(mark) ?? []), ...list]);
+  };
+  for (const d of loaded) {
+    const members: DeckMember[] = spanOn(d.level).map((m) => ({ mark: m.mark, p1: m.p1, p2: m.p2 }));
+    if (d.kind === "two-way") {
+      const r = twoWayPanel(d, members, tol);
+      if (r.ok) add(r.pieces);
+      else problems.push(problem(d.cells.shape, "badTwoWay", `Two-way deck ${d.area} ${r.message}.`));
+      continue;
+    }
+    const openings = decks.filter((o) => o.kind === "opening" && o.level === d.level).map((o) => o.corners);
+    const r = oneWayDeck(d, openings, members, tol);
+    add(r.pieces);
+    if (r.unsupported) problems.push(problem(d.cells.shape, "unsupportedDeck", `Deck ${d.area} has strips with no supporting member across them (in its span direction): that deck carries no load anywhere.`));
+  }
+  const members = [...out, ...added].map((m) => {
+    const list = pieces.get(m.mark);
+    if (!list) return m;
+    const tributary = mergePieces(list, m.span ?? 1);
+    const tributaryArea = tributary.reduce((s, p) => s + ((p.to - p.from) * (p.width + p.endWidth)) / 2, 0);
+    return { ...m, tributary, tributaryArea };
+  });
+  return { members, bearings, problems, tolerance: tol };
+}
