@@ -40,11 +40,11 @@ export function readCoordinate(cell: CellValue | undefined, axis: "x" | "y", gri
 }
 
 function readCoordinateText(text: string, axis: "x" | "y", grids: GridLines): Read<number> {
-  if (COORDINATE_FORMS.number.pattern.test(text)) return { ok: true, value: Number(text) };
   const own = axis === "x" ? grids.x : grids.y;
   const other = axis === "x" ? grids.y : grids.x;
   const exact = own.get(gridKey(text));
   if (exact !== undefined) return { ok: true, value: exact };
+  if (COORDINATE_FORMS.number.pattern.test(text)) return { ok: true, value: Number(text) };
   const m = COORDINATE_FORMS.offset.pattern.exec(text);
   if (m) {
     const base = own.get(gridKey(m[1]!));

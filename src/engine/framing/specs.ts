@@ -89,8 +89,8 @@ export const KIND_NAMES: Readonly<Record<string, "one-way" | "two-way" | "openin
 
 /**
  * The forms a coordinate takes, as data: the pattern (whole cell text, trimmed) and an example.
- * A number cell is always a coordinate. A grid name is looked up exactly first, so a grid named
- * "A-1" is never read as "A" minus 1.
+ * A number cell is always a coordinate. Text is looked up as a grid name exactly first, so a grid
+ * named "A-1" is never read as "A" minus 1 and the text "2" naming grid 2 is that grid.
  */
 export const COORDINATE_FORMS = {
   /** A number typed as text: `12.5`. */
