@@ -52,8 +52,12 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
   const tol = options.tolerance ?? DEFAULT_TOLERANCE[options.units ?? "US"];
   const problems: FramingProblem[] = [];
   const sorted = [...plan.members].sort(byMark);
-  const nodes = snapPoints(sorted.flatMap((m) => [m.p1, m.p2]), tol);
+  const sortedDecks = [...plan.decks].sort((a, b) => (a.area < b.area ? -1 : a.area > b.area ? 1 : 0));
+  // member ends and deck corners snap together, so a deck edge on a member is on it exactly
+  const nodes = snapPoints([...sorted.flatMap((m) => [m.p1, m.p2]), ...sortedDecks.flatMap((d) => d.corners)], tol);
   const snapped = sorted.map((m, i) => ({ ...m, p1: nodes[2 * i]!, p2: nodes[2 * i + 1]! }));
+  let next = 2 * sorted.length;
+  const snappedDecks = sortedDecks.map((d) => ({ ...d, corners: d.corners.map(() => nodes[next++]!) }));
   const levelIndex = new Map(plan.levels.map((l, i) => [l.name, i]));
   const byLevel = new Map<string, typeof snapped>();
   for (const m of snapped) {
@@ -181,7 +185,7 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
 
   // decks, level by level, in order of area name
   const pieces = new Map<string, TributaryPiece[]>();
-  const decks = [...plan.decks].sort((a, b) => (a.area < b.area ? -1 : a.area > b.area ? 1 : 0));
+  const decks = snappedDecks;
   const loaded = decks.filter((d) => d.kind !== "opening");
   for (let i = 0; i < loaded.length; i++)
     for (let j = i + 1; j < loaded.length; j++) {

@@ -148,7 +148,7 @@ export function oneWayDeck(deck: PlanDeck, openings: readonly (readonly Point[])
       if (at(hi, vm) - at(lo, vm) <= 1e-12 * scale) continue;
       const inside = active.filter((x) => at(x.line, vm) >= at(lo, vm) - tol && at(x.line, vm) <= at(hi, vm) + tol).sort((p, q) => at(p.line, vm) - at(q.line, vm));
       if (inside.length === 0) {
-        unsupported = true;
+        if (vb - va >= tol) unsupported = true; // a sliver thinner than the tolerance is round-off, not a strip
         continue;
       }
       inside.forEach((x, i) => {
