@@ -9,6 +9,7 @@ import type { CellRef } from "../takedown/types";
 import { crossing, dist, interiorPoint, project, strictlyInside } from "./geometry";
 import { oneWayDeck, type DeckMember } from "./oneway";
 import { snapPoints } from "./snap";
+import { SegmentGrid } from "./spatial";
 import { twoWayPanel } from "./twoway";
 import { RANK, type Derivation, type DerivedBearing, type DerivedMember, type DeriveOptions, type FramingProblem, type FramingProblemCode, type Plan, type PlanMember, type Point, type TributaryPiece } from "./types";
 
@@ -70,22 +71,47 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     if (spanning(m) && samePoint(m.p1, m.p2)) problems.push(problem(m.cells.x2, "zeroLength", `${m.mark}: its two ends are one point (within ${tol}).`, m.mark));
     else valid.add(m.mark);
   }
-  const spanOn = (level: string): typeof snapped => (byLevel.get(level) ?? []).filter((m) => spanning(m) && valid.has(m.mark));
-  const columnsOn = (level: string): typeof snapped => (byLevel.get(level) ?? []).filter((m) => m.type === "column");
+  type Snapped = (typeof snapped)[number];
+  const spanCache = new Map<string, { list: Snapped[]; grid: SegmentGrid<Snapped> }>();
+  const spanIndex = (level: string): { list: Snapped[]; grid: SegmentGrid<Snapped> } => {
+    let c = spanCache.get(level);
+    if (!c) {
+      const list = (byLevel.get(level) ?? []).filter((m) => spanning(m) && valid.has(m.mark));
+      c = { list, grid: new SegmentGrid(list, tol) };
+      spanCache.set(level, c);
+    }
+    return c;
+  };
+  const spanOn = (level: string): Snapped[] => spanIndex(level).list;
+  const colCache = new Map<string, { list: Snapped[]; at: Map<string, Snapped> }>();
+  const colIndex = (level: string): { list: Snapped[]; at: Map<string, Snapped> } => {
+    let c = colCache.get(level);
+    if (!c) {
+      const list = (byLevel.get(level) ?? []).filter((m) => m.type === "column");
+      const at = new Map<string, Snapped>();
+      for (const m of list) if (!at.has(`${m.p1.x},${m.p1.y}`)) at.set(`${m.p1.x},${m.p1.y}`, m);
+      c = { list, at };
+      colCache.set(level, c);
+    }
+    return c;
+  };
+  const columnsOn = (level: string): Snapped[] => colIndex(level).list;
+  const columnAt = (level: string, p: Point): Snapped | undefined => colIndex(level).at.get(`${p.x},${p.y}`);
   const foundations = snapped.filter((m) => m.type === "foundation");
 
   // pairs on one level: duplicate columns, collinear overlaps, crossings
   const bearings: DerivedBearing[] = [];
   for (const [level] of byLevel) {
-    const cols = columnsOn(level);
-    for (let i = 0; i < cols.length; i++)
-      for (let j = i + 1; j < cols.length; j++)
-        if (samePoint(cols[i]!.p1, cols[j]!.p1)) problems.push(problem(cols[j]!.cells.mark, "duplicateColumn", `Columns ${cols[i]!.mark} and ${cols[j]!.mark} of level ${level} stand at one point.`, cols[j]!.mark));
-    const sp = spanOn(level);
+    for (const c of columnsOn(level)) {
+      const first = columnAt(level, c.p1)!;
+      if (first !== c) problems.push(problem(c.cells.mark, "duplicateColumn", `Columns ${first.mark} and ${c.mark} of level ${level} stand at one point.`, c.mark));
+    }
+    const { list: sp, grid } = spanIndex(level);
+    const order = new Map(sp.map((m, i) => [m, i]));
     for (let i = 0; i < sp.length; i++) {
       const a = sp[i]!;
-      for (let j = i + 1; j < sp.length; j++) {
-        const b = sp[j]!;
+      const near = grid.inBox(Math.min(a.p1.x, a.p2.x), Math.min(a.p1.y, a.p2.y), Math.max(a.p1.x, a.p2.x), Math.max(a.p1.y, a.p2.y)).filter((b) => order.get(b)! > i).sort((p, q) => order.get(p)! - order.get(q)!);
+      for (const b of near) {
         if (Math.max(b.p1.x, b.p2.x) < Math.min(a.p1.x, a.p2.x) - tol || Math.min(b.p1.x, b.p2.x) > Math.max(a.p1.x, a.p2.x) + tol) continue;
         if (Math.max(b.p1.y, b.p2.y) < Math.min(a.p1.y, a.p2.y) - tol || Math.min(b.p1.y, b.p2.y) > Math.max(a.p1.y, a.p2.y) + tol) continue;
         const q1 = project(b.p1, a.p1, a.p2);
@@ -108,9 +134,9 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
   }
 
   /** The member of `candidates` of highest rank (above `above`) through p, ties by mark. */
-  const through = (p: Point, candidates: typeof snapped, above: number, self?: string): { mark: string; at: number } | null => {
+  const through = (p: Point, level: string, above: number, self?: string): { mark: string; at: number } | null => {
     let best: { mark: string; at: number; rank: number } | null = null;
-    for (const m of candidates) {
+    for (const m of spanIndex(level).grid.near(p)) {
       if (m.mark === self || RANK[m.type] <= above) continue;
       const pr = project(p, m.p1, m.p2);
       if (pr.off > tol || pr.along < -tol || pr.along > pr.length + tol) continue;
@@ -144,9 +170,9 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     const li = levelIndex.get(m.level);
     const below = li !== undefined && li > 0 ? plan.levels[li - 1]!.name : null;
     if (below !== null) {
-      const col = columnsOn(below).find((c) => samePoint(c.p1, p));
+      const col = columnAt(below, p);
       if (col) return { mark: col.mark, at: null };
-      const t = through(p, spanOn(below), 0);
+      const t = through(p, below, 0);
       if (t) return t;
     }
     const f = foundations.find((c) => samePoint(c.p1, p));
@@ -173,9 +199,9 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
       continue;
     }
     const ends = ([[m.p1, m.cells.x1, "start"], [m.p2, m.cells.x2, "end"]] as const).map(([p, cell, which]) => {
-      const col = columnsOn(m.level).find((c) => samePoint(c.p1, p));
+      const col = columnAt(m.level, p);
       if (col) return { mark: col.mark, at: null };
-      const t = through(p, spanOn(m.level), RANK[m.type], m.mark);
+      const t = through(p, m.level, RANK[m.type], m.mark);
       if (t) return t;
       problems.push(problem(cell, "endOnNothing", `The ${which} of ${m.mark} (${p.x}, ${p.y}) is on no column of level ${m.level} and no member of higher rank than a ${m.type}.`, m.mark));
       return null;
@@ -202,7 +228,8 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     for (const [mark, list] of from) pieces.set(mark, [...(pieces.get(mark) ?? []), ...list]);
   };
   for (const d of loaded) {
-    const members: DeckMember[] = spanOn(d.level).map((m) => ({ mark: m.mark, p1: m.p1, p2: m.p2 }));
+    const xs = d.corners.map((p) => p.x), ys = d.corners.map((p) => p.y);
+    const members: DeckMember[] = spanIndex(d.level).grid.inBox(Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)).sort(byMark);
     if (d.kind === "two-way") {
       const r = twoWayPanel(d, members, tol);
       if (r.ok) add(r.pieces);
