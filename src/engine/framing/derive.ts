@@ -213,17 +213,31 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
   const pieces = new Map<string, TributaryPiece[]>();
   const decks = snappedDecks;
   const loaded = decks.filter((d) => d.kind !== "opening");
-  for (let i = 0; i < loaded.length; i++)
-    for (let j = i + 1; j < loaded.length; j++) {
-      const a = loaded[i]!, b = loaded[j]!;
-      if (a.level !== b.level) continue;
-      const edgesCross = a.corners.some((p, k) => b.corners.some((q, l) => {
+  const box = (d: (typeof loaded)[number]): [number, number, number, number] => {
+    const xs = d.corners.map((p) => p.x), ys = d.corners.map((p) => p.y);
+    return [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)];
+  };
+  const boxes = new Map(loaded.map((d) => [d, box(d)]));
+  // pairs whose boxes overlap by more than the tolerance, found by a sweep along x per level
+  const sweep = [...loaded].sort((a, b) => (a.level < b.level ? -1 : a.level > b.level ? 1 : boxes.get(a)![0] - boxes.get(b)![0]));
+  const pairs: [(typeof loaded)[number], (typeof loaded)[number]][] = [];
+  for (let i = 0; i < sweep.length; i++)
+    for (let j = i + 1; j < sweep.length; j++) {
+      const a = sweep[i]!, b = sweep[j]!;
+      const ba = boxes.get(a)!, bb = boxes.get(b)!;
+      if (a.level !== b.level || bb[0] >= ba[2] - tol) break;
+      if (bb[1] >= ba[3] - tol || bb[3] <= ba[1] + tol) continue;
+      pairs.push(a.area < b.area ? [a, b] : [b, a]);
+    }
+  pairs.sort((p, q) => (p[0].area < q[0].area ? -1 : p[0].area > q[0].area ? 1 : p[1].area < q[1].area ? -1 : 1));
+  for (const [a, b] of pairs) {
+    const edgesCross = a.corners.some((p, k) => b.corners.some((q, l) => {
         const x = crossing(p, a.corners[(k + 1) % a.corners.length]!, q, b.corners[(l + 1) % b.corners.length]!);
         return x !== null && x.s > tol && x.t > tol && x.s < dist(p, a.corners[(k + 1) % a.corners.length]!) - tol && x.t < dist(q, b.corners[(l + 1) % b.corners.length]!) - tol;
       }));
       if (edgesCross || strictlyInside(interiorPoint(a.corners), b.corners, tol) || strictlyInside(interiorPoint(b.corners), a.corners, tol))
         problems.push(problem(b.cells.shape, "overlappingDecks", `Decks ${a.area} and ${b.area} of level ${a.level} overlap: their load would be counted twice.`));
-    }
+  }
   const add = (from: ReadonlyMap<string, TributaryPiece[]>): void => {
     for (const [mark, list] of from) pieces.set(mark, [...(pieces.get(mark) ?? []), ...list]);
   };
