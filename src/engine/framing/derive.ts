@@ -6,7 +6,7 @@
  */
 import { a1 } from "../a1";
 import type { CellRef } from "../takedown/types";
-import { crossing, dist, interiorPoint, project, strictlyInside } from "./geometry";
+import { crossing, dist, polygonsOverlap, project } from "./geometry";
 import { oneWayDeck, type DeckMember } from "./oneway";
 import { snapPoints } from "./snap";
 import { SegmentGrid } from "./spatial";
@@ -131,7 +131,14 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
         bearings.push({ mark: low.mark, support: high.mark, at: atLow, supportAt: atHigh });
       }
     }
+    // a member passing over a column of its level is continuous over it
+    for (const c of columnsOn(level))
+      for (const m of grid.near(c.p1)) {
+        const pr = project(c.p1, m.p1, m.p2);
+        if (pr.off <= tol && pr.along > tol && pr.along < pr.length - tol) bearings.push({ mark: m.mark, support: c.mark, at: pr.along, supportAt: null });
+      }
   }
+  bearings.sort((p, q) => (p.mark < q.mark ? -1 : p.mark > q.mark ? 1 : p.at - q.at));
 
   /** The member of `candidates` of highest rank (above `above`) through p, ties by mark. */
   const through = (p: Point, level: string, above: number, self?: string): { mark: string; at: number } | null => {
@@ -230,27 +237,25 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
       pairs.push(a.area < b.area ? [a, b] : [b, a]);
     }
   pairs.sort((p, q) => (p[0].area < q[0].area ? -1 : p[0].area > q[0].area ? 1 : p[1].area < q[1].area ? -1 : 1));
-  for (const [a, b] of pairs) {
-    const edgesCross = a.corners.some((p, k) => b.corners.some((q, l) => {
-        const x = crossing(p, a.corners[(k + 1) % a.corners.length]!, q, b.corners[(l + 1) % b.corners.length]!);
-        return x !== null && x.s > tol && x.t > tol && x.s < dist(p, a.corners[(k + 1) % a.corners.length]!) - tol && x.t < dist(q, b.corners[(l + 1) % b.corners.length]!) - tol;
-      }));
-      if (edgesCross || strictlyInside(interiorPoint(a.corners), b.corners, tol) || strictlyInside(interiorPoint(b.corners), a.corners, tol))
-        problems.push(problem(b.cells.shape, "overlappingDecks", `Decks ${a.area} and ${b.area} of level ${a.level} overlap: their load would be counted twice.`));
-  }
+  for (const [a, b] of pairs)
+    if (polygonsOverlap(a.corners, b.corners, tol)) problems.push(problem(b.cells.shape, "overlappingDecks", `Decks ${a.area} and ${b.area} of level ${a.level} overlap: their load would be counted twice.`));
   const add = (from: ReadonlyMap<string, TributaryPiece[]>): void => {
     for (const [mark, list] of from) pieces.set(mark, [...(pieces.get(mark) ?? []), ...list]);
   };
   for (const d of loaded) {
     const xs = d.corners.map((p) => p.x), ys = d.corners.map((p) => p.y);
     const members: DeckMember[] = spanIndex(d.level).grid.inBox(Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)).sort(byMark);
+    const openings = decks.filter((o) => o.kind === "opening" && o.level === d.level).map((o) => o.corners);
     if (d.kind === "two-way") {
+      if (openings.some((o) => polygonsOverlap(o, d.corners, tol))) {
+        problems.push(problem(d.cells.shape, "badTwoWay", `Two-way deck ${d.area} has an opening in it; a two-way panel by 45-degree lines is a whole rectangle (describe the deck around the opening as one-way areas).`));
+        continue;
+      }
       const r = twoWayPanel(d, members, tol);
       if (r.ok) add(r.pieces);
       else problems.push(problem(d.cells.shape, "badTwoWay", `Two-way deck ${d.area} ${r.message}.`));
       continue;
     }
-    const openings = decks.filter((o) => o.kind === "opening" && o.level === d.level).map((o) => o.corners);
     const r = oneWayDeck(d, openings, members, tol);
     add(r.pieces);
     if (r.unsupported) problems.push(problem(d.cells.shape, "unsupportedDeck", `Deck ${d.area} has strips with no supporting member across them (in its span direction): that deck carries no load anywhere.`));

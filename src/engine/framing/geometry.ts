@@ -104,3 +104,20 @@ export function interiorPoint(poly: readonly Point[]): Point {
   }
   return poly[0]!;
 }
+
+/**
+ * Whether two simple polygons overlap with some area: two edges cross away from their ends (by
+ * more than tol), or an interior point of one is strictly inside the other. Polygons that only
+ * share edges or corners do not overlap.
+ */
+export function polygonsOverlap(a: readonly Point[], b: readonly Point[], tol: number): boolean {
+  const edgesCross = a.some((p, k) =>
+    b.some((q, l) => {
+      const p2 = a[(k + 1) % a.length]!;
+      const q2 = b[(l + 1) % b.length]!;
+      const x = crossing(p, p2, q, q2);
+      return x !== null && x.s > tol && x.t > tol && x.s < dist(p, p2) - tol && x.t < dist(q, q2) - tol;
+    }),
+  );
+  return edgesCross || strictlyInside(interiorPoint(a), b, tol) || strictlyInside(interiorPoint(b), a, tol);
+}

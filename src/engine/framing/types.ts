@@ -133,14 +133,14 @@ export interface DerivedSupport {
   readonly supportAt: number | null;
 }
 
-/** A member bearing on another where it crosses it (a Bearings row): continuous over it. */
+/** A member bearing on another where it crosses it, or on a column it passes over (a Bearings row): continuous over it. */
 export interface DerivedBearing {
   readonly mark: string;
   readonly support: string;
   /** Position along the bearing member (ft or m from its start). */
   readonly at: number;
-  /** Position along the supporting member (ft or m from its start). */
-  readonly supportAt: number;
+  /** Position along the supporting member (ft or m from its start); null on a column. */
+  readonly supportAt: number | null;
 }
 
 /** One derived row in the shape of the Members table, plus the plan coordinates (snapped). */

@@ -52,6 +52,29 @@ describe("supports, bearings and column stacks", () => {
     expect(m("F-C1a").type).toBe("foundation");
   });
 
+  it("a beam passing over a column is continuous over it (a bearing on the column); walls stand on the level below or a foundation", () => {
+    const d = plan(
+      [
+        ["C1", "column", "1", 0, 0],
+        ["C2", "column", "1", 10, 0],
+        ["C3", "column", "1", 25, 0],
+        ["B1", "beam", "1", 0, 0, 25, 0],
+        ["W1", "wall", "1", 0, 8, 25, 8],
+        ["W2", "wall", "2", 0, 8, 25, 8],
+        ["W3", "wall", "2", 4, 0, 9, 0],
+      ],
+      [],
+      [],
+      levels,
+    );
+    expect(d.problems).toEqual([]);
+    expect(d.bearings).toEqual([{ mark: "B1", support: "C2", at: 10, supportAt: null }]);
+    const m = (k: string) => d.members.find((x) => x.mark === k)!;
+    expect([m("W1").startSupport, m("W1").endSupport]).toEqual(["F-W1", "F-W1"]);
+    expect([m("W2").startSupport, m("W2").startAt, m("W2").endSupport, m("W2").endAt]).toEqual(["W1", 0, "W1", 25]);
+    expect([m("W3").startSupport, m("W3").startAt, m("W3").endSupport, m("W3").endAt]).toEqual(["B1", 4, "B1", 9]);
+  });
+
   it("grid names with offsets and polygons of grid intersections", () => {
     const d = plan(
       [
@@ -123,6 +146,8 @@ describe("problems name their cells", () => {
         ["D3", "1", "one-way", "Office", "y", null, null, null, null, "20,0; 30,0; 30,10; 20,10"],
         ["D4", "1", "one-way", "Office", "x", null, null, null, null, "40,0; 50,10; 50,0; 40,10"],
         ["D5", "1", "two-way", "Office", null, 60, 0, 70, 10],
+        ["D6", "1", "two-way", "Office", null, 80, 0, 90, 10],
+        ["O6", "1", "opening", null, null, 84, 4, 86, 6],
       ],
     );
     const codes = d.problems.map((p) => [p.code, p.cell]);
@@ -130,5 +155,6 @@ describe("problems name their cells", () => {
     expect(codes).toContainEqual(["unsupportedDeck", "J4"]);
     expect(codes).toContainEqual(["selfIntersecting", "J5"]);
     expect(codes).toContainEqual(["badTwoWay", "F6"]);
+    expect(codes).toContainEqual(["badTwoWay", "F7"]);
   });
 });
