@@ -1,7 +1,8 @@
 /**
  * Two-way rectangular panels by 45-degree lines from the corners: each short side (Lx) carries a
  * triangle (total q·Lx²/4), each long side (Ly) a trapezoid (total q·(Lx·Ly/2 − Lx²/4)). Only a
- * rectangle with a member along every side is taken; anything else is reported, not guessed.
+ * rectangle with members along every side (one, or several end to end) is taken; anything else is
+ * reported, not guessed.
  */
 import { dist, project } from "./geometry";
 import type { DeckMember } from "./oneway";
@@ -30,22 +31,40 @@ export function twoWayPanel(deck: PlanDeck, members: readonly DeckMember[], tol:
   for (let i = 0; i < 4; i++) {
     const a = p[i]!, b = p[(i + 1) % 4]!;
     const ls = dist(a, b);
-    const on = members.find((m) => {
-      const pa = project(a, m.p1, m.p2);
-      const pb = project(b, m.p1, m.p2);
-      return pa.off <= tol && pb.off <= tol && Math.min(pa.along, pb.along) >= -tol && Math.max(pa.along, pb.along) <= pa.length + tol;
-    });
-    if (!on) return { ok: false, message: `has no member along its side from (${a.x}, ${a.y}) to (${b.x}, ${b.y})` };
-    const sa = project(a, on.p1, on.p2).along;
-    const dir = project(b, on.p1, on.p2).along >= sa ? 1 : -1;
+    // members along the side (both ends within tol of its line), as intervals along the side from a
+    const along: { m: DeckMember; s0: number; s1: number }[] = [];
+    for (const m of members) {
+      const q1 = project(m.p1, a, b);
+      const q2 = project(m.p2, a, b);
+      if (q1.off > tol || q2.off > tol) continue;
+      const s0 = Math.max(0, Math.min(q1.along, q2.along));
+      const s1 = Math.min(ls, Math.max(q1.along, q2.along));
+      if (s1 - s0 > tol) along.push({ m, s0, s1 });
+    }
+    along.sort((x, y) => x.s0 - y.s0);
+    let covered = 0;
+    for (const x of along) if (x.s0 <= covered + tol) covered = Math.max(covered, x.s1);
+    if (covered < ls - tol) return { ok: false, message: `has no member along its side from (${a.x}, ${a.y}) to (${b.x}, ${b.y})${covered > 0 ? ` beyond ${covered} from its start` : ""}` };
     // width along the side from a: 0 -> h over [0, h], h over [h, ls - h], h -> 0 over [ls - h, ls]
     const shape: [number, number, number, number][] = ls - lx <= 0 ? [[0, h, 0, h], [h, ls, h, 0]] : [[0, h, 0, h], [h, ls - h, h, h], [ls - h, ls, h, 0]];
-    const list = pieces.get(on.mark) ?? [];
-    for (const [s0, s1, w0, w1] of shape) {
-      const f = sa + dir * s0, t = sa + dir * s1;
-      list.push(dir > 0 ? { zone: deck.zone, area: deck.area, from: f, to: t, width: w0, endWidth: w1 } : { zone: deck.zone, area: deck.area, from: t, to: f, width: w1, endWidth: w0 });
+    let from = 0;
+    for (const x of along) {
+      // each part of the side goes to the first member (by position) that covers it
+      const lo = Math.max(from, x.s0), hi = x.s1;
+      if (hi - lo <= 0) continue;
+      from = hi;
+      const sa = project(a, x.m.p1, x.m.p2).along;
+      const dir = project(b, x.m.p1, x.m.p2).along >= sa ? 1 : -1;
+      const list = pieces.get(x.m.mark) ?? [];
+      for (const [s0, s1, w0, w1] of shape) {
+        const c0 = Math.max(s0, lo), c1 = Math.min(s1, hi);
+        if (c1 - c0 <= 0) continue;
+        const wAt = (t: number): number => w0 + ((w1 - w0) * (t - s0)) / (s1 - s0);
+        const f = sa + dir * c0, t = sa + dir * c1;
+        list.push(dir > 0 ? { zone: deck.zone, area: deck.area, from: f, to: t, width: wAt(c0), endWidth: wAt(c1) } : { zone: deck.zone, area: deck.area, from: t, to: f, width: wAt(c1), endWidth: wAt(c0) });
+      }
+      pieces.set(x.m.mark, list);
     }
-    pieces.set(on.mark, list);
   }
   return { ok: true, pieces };
 }

@@ -109,4 +109,32 @@ describe("two-way panel by 45-degree lines", () => {
       [20, 30, 10, 0],
     ]);
   });
+
+  it("a side carried by two girders end to end splits its trapezoid between them at the joint (same 45-degree rule)", () => {
+    const d = plan(
+      [
+        ["C1", "column", "1", 0, 0],
+        ["C2", "column", "1", 30, 0],
+        ["C3", "column", "1", 0, 20],
+        ["C4", "column", "1", 30, 20],
+        ["C5", "column", "1", 15, 0],
+        ["G1a", "girder", "1", 0, 0, 15, 0],
+        ["G1b", "girder", "1", 15, 0, 30, 0],
+        ["G2", "girder", "1", 0, 20, 30, 20],
+        ["G3", "girder", "1", 0, 20, 0, 0],
+        ["G4", "girder", "1", 30, 0, 30, 20],
+      ],
+      [["P1", "1", "two-way", "Office", null, 0, 0, 30, 20]],
+    );
+    expect(d.problems).toEqual([]);
+    // trapezoid 0 -> 10 over 0..10, 10 over 10..20, 10 -> 0 over 20..30: each half carries 50 + 50
+    expect(total(d, "G1a")).toBeCloseTo(100, 10);
+    expect(total(d, "G1b")).toBeCloseTo(100, 10);
+    expect(d.members.find((m) => m.mark === "G1b")!.tributary.map((p) => [p.from, p.to, p.width, p.endWidth])).toEqual([
+      [0, 5, 10, 10],
+      [5, 15, 10, 0],
+    ]);
+    // G3 runs from (0, 20) to (0, 0): its triangle measured from its own start
+    expect(total(d, "G3")).toBeCloseTo((20 * 20) / 4, 10);
+  });
 });
