@@ -2,14 +2,11 @@
  * Hand-worked cases of the derivation (statics by hand; formulas named beside each check).
  */
 import { describe, expect, it } from "vitest";
-import { plan, total } from "./helpers";
+import { cornerColumns, plan, total } from "./helpers";
 
 // A bay 30 ft (x) by 24 ft (y): girders along x at y = 0 and y = 24 on columns, beams along y.
 const bay = (beamsAt: number[]) => [
-  ["C1", "column", "1", 0, 0],
-  ["C2", "column", "1", 30, 0],
-  ["C3", "column", "1", 0, 24],
-  ["C4", "column", "1", 30, 24],
+  ...cornerColumns(30, 24),
   ["G1", "girder", "1", 0, 0, 30, 0],
   ["G2", "girder", "1", 0, 24, 30, 24],
   ...beamsAt.map((x, i) => [`B${i + 1}`, "beam", "1", x, 0, x, 24]),
@@ -85,10 +82,7 @@ describe("two-way panel by 45-degree lines", () => {
   it("short sides carry qLx²/4, long sides q(LxLy/2 - Lx²/4) (yield-line / 45-degree rule, e.g. ACI 318 two-way slab load distribution, recalled from memory)", () => {
     const d = plan(
       [
-        ["C1", "column", "1", 0, 0],
-        ["C2", "column", "1", 30, 0],
-        ["C3", "column", "1", 0, 20],
-        ["C4", "column", "1", 30, 20],
+        ...cornerColumns(30, 20),
         ["G1", "girder", "1", 0, 0, 30, 0],
         ["G2", "girder", "1", 0, 20, 30, 20],
         ["G3", "girder", "1", 0, 0, 0, 20],
@@ -113,10 +107,7 @@ describe("two-way panel by 45-degree lines", () => {
   it("a side carried by two girders end to end splits its trapezoid between them at the joint (same 45-degree rule)", () => {
     const d = plan(
       [
-        ["C1", "column", "1", 0, 0],
-        ["C2", "column", "1", 30, 0],
-        ["C3", "column", "1", 0, 20],
-        ["C4", "column", "1", 30, 20],
+        ...cornerColumns(30, 20),
         ["C5", "column", "1", 15, 0],
         ["G1a", "girder", "1", 0, 0, 15, 0],
         ["G1b", "girder", "1", 15, 0, 30, 0],

@@ -26,3 +26,13 @@ export function total(d: Derivation, mark: string): number {
   const m = d.members.find((x) => x.mark === mark);
   return m ? m.tributaryArea : NaN;
 }
+
+/** Framing rows of four corner columns C1 (0, 0), C2 (w, 0), C3 (0, h), C4 (w, h) on level 1. */
+export function cornerColumns(w: number, h: number): CellValue[][] {
+  return [
+    ["C1", "column", "1", 0, 0],
+    ["C2", "column", "1", w, 0],
+    ["C3", "column", "1", 0, h],
+    ["C4", "column", "1", w, h],
+  ];
+}
