@@ -5,9 +5,10 @@
  * processed sorted by mark.
  */
 import { a1 } from "../a1";
-import type { CellRef } from "../takedown/types";
+import type { CellRef, UnitSystem } from "../takedown/types";
 import { crossing, dist, polygonsOverlap, project } from "./geometry";
 import { oneWayDeck, type DeckMember } from "./oneway";
+import { readPlan, type PlanTables } from "./read";
 import { snapPoints } from "./snap";
 import { SegmentGrid } from "./spatial";
 import { twoWayPanel } from "./twoway";
@@ -268,4 +269,16 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     return { ...m, tributary, tributaryArea };
   });
   return { members, bearings, problems, tolerance: tol };
+}
+
+/**
+ * Read the plan tables and derive, problems of both steps together (reading first).
+ * @param tables - Grids, Levels, Framing and Decks as read from the sheets
+ * @param units - unit system of the lengths (ft or m); also picks the default tolerance
+ * @param tolerance - snapping tolerance (ft or m); default 1/16 in (US) or 1.5 mm (SI)
+ */
+export function derivePlan(tables: PlanTables, units: UnitSystem = "US", tolerance?: number): Derivation {
+  const r = readPlan(tables, units);
+  const d = derive(r.plan, { units, ...(tolerance !== undefined ? { tolerance } : {}) });
+  return { ...d, problems: [...r.problems, ...d.problems] };
 }

@@ -1,6 +1,6 @@
 /** Builders of plan tables for the framing tests (2-D arrays as read from a sheet at A1). */
 import type { CellValue, TableData } from "../../../src/engine/takedown/types";
-import { derive, readPlan, type Derivation } from "../../../src/engine/framing";
+import { derivePlan, type Derivation } from "../../../src/engine/framing";
 
 export function table(sheet: string, rows: CellValue[][]): TableData {
   return { sheet, top: 0, left: 0, values: rows };
@@ -10,15 +10,14 @@ export const FRAMING_HEAD: CellValue[] = ["Mark", "Type", "Level", "X1", "Y1", "
 export const DECKS_HEAD: CellValue[] = ["Area", "Level", "Kind", "Zone", "Span", "X1", "Y1", "X2", "Y2", "Corners"];
 
 /** Read and derive a plan from rows (without their header rows). */
-export function plan(framing: CellValue[][], decks: CellValue[][] = [], grids: CellValue[][] = [], levels: CellValue[][] = [["1", 12]], tolerance?: number): Derivation & { readProblems: number } {
-  const r = readPlan({
+export function plan(framing: CellValue[][], decks: CellValue[][] = [], grids: CellValue[][] = [], levels: CellValue[][] = [["1", 12]], tolerance?: number): Derivation {
+  const tables = {
     framing: table("Framing", [FRAMING_HEAD, ...framing]),
     decks: table("Decks", [DECKS_HEAD, ...decks]),
     grids: table("Grids", [["Grid", "X", "Y"], ...grids]),
     levels: table("Levels", [["Level", "Elevation"], ...levels]),
-  });
-  const d = derive(r.plan, tolerance !== undefined ? { tolerance } : {});
-  return { ...d, problems: [...r.problems, ...d.problems], readProblems: r.problems.length };
+  };
+  return derivePlan(tables, "US", tolerance);
 }
 
 /** A member's total deck load per unit area load (ft² or m²) from its pieces. */
