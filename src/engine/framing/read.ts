@@ -95,11 +95,17 @@ export function readPlan(tables: PlanTables, units: UnitSystem = "US"): PlanRead
 
   const members: PlanMember[] = [];
   const t = match(FRAMING_SPEC, tables.framing, units, problems);
+  const marks = new Map<string, ReturnType<typeof tableCell>>();
   for (const r of t.rows) {
     const row = t.data.values[r]!;
     const c = t.columns;
     if (c.mark === undefined || c.x1 === undefined || c.y1 === undefined) break;
     const mark = text(row[c.mark]);
+    if (mark === "" || marks.has(mark)) {
+      problems.push(problemAtCell(t.data, r, c.mark, "badValue", mark === "" ? "A Framing row has no Mark." : `Mark ${mark} is used twice in the Framing table (first at ${a1(marks.get(mark)!.row, marks.get(mark)!.col)}); this row is left out.`, mark || undefined));
+      continue;
+    }
+    marks.set(mark, tableCell(t.data, r, c.mark));
     const typeName = text(c.type !== undefined ? row[c.type] : null).toLowerCase();
     const type = TYPE_NAMES[typeName];
     if (type === undefined) {

@@ -115,6 +115,22 @@ describe("problems name their cells", () => {
     expect(codes).toContainEqual(["endOnNothing", "F4"]); // B1's end (10, 0): X2 cell
   });
 
+  it("blank and repeated marks, unknown types and levels", () => {
+    const d = plan([
+      ["C1", "column", "1", 0, 0],
+      ["C1", "column", "1", 5, 0],
+      [null, "beam", "1", 0, 0, 5, 0],
+      ["B1", "truss", "1", 0, 0, 5, 0],
+      ["B2", "beam", "9", 0, 0, 5, 0],
+    ]);
+    expect(d.problems.map((p) => [p.code, p.cell])).toEqual([
+      ["badValue", "A3"],
+      ["badValue", "A4"],
+      ["badValue", "B5"],
+      ["unknownLevel", "C6"],
+    ]);
+  });
+
   it("unknown grid names and unreadable coordinates", () => {
     const d = plan(
       [
