@@ -8,7 +8,7 @@ import { a1 } from "../a1";
 import type { CellRef, UnitSystem } from "../takedown/types";
 import { crossing, dist, polygonsOverlap, project } from "./geometry";
 import { oneWayDeck, type DeckMember } from "./oneway";
-import { readPlan, type PlanTables } from "./read";
+import { readPlan, type PlanReadings, type PlanTables } from "./read";
 import { snapPoints } from "./snap";
 import { SegmentGrid } from "./spatial";
 import { twoWayPanel } from "./twoway";
@@ -276,9 +276,10 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
  * @param tables - Grids, Levels, Framing and Decks as read from the sheets
  * @param units - unit system of the lengths (ft or m); also picks the default tolerance
  * @param tolerance - snapping tolerance (ft or m); default 1/16 in (US) or 1.5 mm (SI)
+ * @param readings - per table, the user's column mapping and header row
  */
-export function derivePlan(tables: PlanTables, units: UnitSystem = "US", tolerance?: number): Derivation {
-  const r = readPlan(tables, units);
+export function derivePlan(tables: PlanTables, units: UnitSystem = "US", tolerance?: number, readings: PlanReadings = {}): Derivation {
+  const r = readPlan(tables, units, readings);
   const d = derive(r.plan, { units, ...(tolerance !== undefined ? { tolerance } : {}) });
   return { ...d, problems: [...r.problems, ...d.problems] };
 }

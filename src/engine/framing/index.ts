@@ -4,5 +4,5 @@
  */
 export * from "./types";
 export { DECKS_SPEC, FRAMING_SPEC, GRIDS_SPEC, LEVELS_SPEC, COORDINATE_FORMS } from "./specs";
-export { readPlan, type PlanTables, type PlanReading } from "./read";
+export { readPlan, type PlanTables, type PlanReading, type PlanReadings } from "./read";
 export { derive, derivePlan, DEFAULT_TOLERANCE } from "./derive";

@@ -4,7 +4,7 @@
  * are left out of the plan; the rest is read.
  */
 import { a1 } from "../a1";
-import { matchTable, tableCell, type MatchedTable, type TableSpec } from "../takedown/tables";
+import { matchTable, tableCell, type MatchedTable, type TableReading, type TableSpec } from "../takedown/tables";
 import type { CellValue, TableData, UnitSystem } from "../takedown/types";
 import { gridKey, readCoordinate, readCorners, type GridLines } from "./coords";
 import { selfIntersects, signedArea } from "./geometry";
@@ -33,8 +33,16 @@ export function problemAtCell(data: TableData, row: number, col: number, code: F
   return { code, message, sheet: data.sheet, cell: a1(data.top + row, data.left + col), ...(mark !== undefined ? { mark } : {}) };
 }
 
-function match<K extends string>(spec: TableSpec<K>, data: TableData, units: UnitSystem, problems: FramingProblem[]): MatchedTable<K> {
-  const m = matchTable(spec, data, units);
+/** How the user reads each plan table (column mapping, header row), as for the member tables. */
+export interface PlanReadings {
+  readonly grids?: TableReading;
+  readonly levels?: TableReading;
+  readonly framing?: TableReading;
+  readonly decks?: TableReading;
+}
+
+function match<K extends string>(spec: TableSpec<K>, data: TableData, units: UnitSystem, problems: FramingProblem[], reading?: TableReading): MatchedTable<K> {
+  const m = matchTable(spec, data, units, reading?.mapping, reading?.headerRow);
   for (const p of m.problems) problems.push({ ...p, code: (TABLE_CODES.has(p.code) ? p.code : "badValue") as FramingProblemCode });
   return m.table;
 }
@@ -47,13 +55,14 @@ function text(v: CellValue | undefined): string {
  * Read the plan tables.
  * @param tables - the tables as read from the sheets
  * @param units - unit system of the lengths (ft or m)
+ * @param readings - per table, the user's column mapping and header row (`--map framing.X1=C`)
  */
-export function readPlan(tables: PlanTables, units: UnitSystem = "US"): PlanReading {
+export function readPlan(tables: PlanTables, units: UnitSystem = "US", readings: PlanReadings = {}): PlanReading {
   const problems: FramingProblem[] = [];
   const gx = new Map<string, number>();
   const gy = new Map<string, number>();
   if (tables.grids) {
-    const t = match(GRIDS_SPEC, tables.grids, units, problems);
+    const t = match(GRIDS_SPEC, tables.grids, units, problems, readings.grids);
     for (const r of t.rows) {
       const row = t.data.values[r]!;
       const name = text(row[t.columns.grid!]);
@@ -78,7 +87,7 @@ export function readPlan(tables: PlanTables, units: UnitSystem = "US"): PlanRead
 
   const levels: PlanLevel[] = [];
   if (tables.levels) {
-    const t = match(LEVELS_SPEC, tables.levels, units, problems);
+    const t = match(LEVELS_SPEC, tables.levels, units, problems, readings.levels);
     for (const r of t.rows) {
       const row = t.data.values[r]!;
       const name = text(row[t.columns.level!]);
@@ -94,7 +103,7 @@ export function readPlan(tables: PlanTables, units: UnitSystem = "US"): PlanRead
   const levelNames = new Set(levels.map((l) => l.name));
 
   const members: PlanMember[] = [];
-  const t = match(FRAMING_SPEC, tables.framing, units, problems);
+  const t = match(FRAMING_SPEC, tables.framing, units, problems, readings.framing);
   const marks = new Map<string, ReturnType<typeof tableCell>>();
   for (const r of t.rows) {
     const row = t.data.values[r]!;
@@ -146,7 +155,7 @@ export function readPlan(tables: PlanTables, units: UnitSystem = "US"): PlanRead
 
   const decks: PlanDeck[] = [];
   if (tables.decks) {
-    const d = match(DECKS_SPEC, tables.decks, units, problems);
+    const d = match(DECKS_SPEC, tables.decks, units, problems, readings.decks);
     const c = d.columns;
     for (const r of d.rows) {
       if (c.area === undefined) break;

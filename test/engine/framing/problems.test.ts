@@ -3,7 +3,8 @@
  * plans; the expected answers are read off the sketch of each plan).
  */
 import { describe, expect, it } from "vitest";
-import { plan } from "./helpers";
+import { readPlan } from "../../../src/engine/framing";
+import { plan, table } from "./helpers";
 
 const levels = [["1", 12], ["2", 24]];
 
@@ -172,5 +173,19 @@ describe("problems name their cells", () => {
     expect(codes).toContainEqual(["selfIntersecting", "J5"]);
     expect(codes).toContainEqual(["badTwoWay", "F6"]);
     expect(codes).toContainEqual(["badTwoWay", "F7"]);
+  });
+});
+
+describe("plan table headers", () => {
+  it("columns named differently are read through the user's mapping; a missing required column is a problem at the header row", () => {
+    const framing = table("Plan", [
+      ["Piece", "Kind", "Floor", "From x", "From y", "To x", "To y"],
+      ["B1", "beam", "1", 0, 0, 10, 0],
+    ]);
+    const unmapped = readPlan({ framing });
+    expect(unmapped.problems.filter((p) => p.code === "missingColumn").map((p) => p.cell)).toEqual(["A1", "A1", "A1", "A1"]);
+    const mapped = readPlan({ framing }, "US", { framing: { mapping: { Mark: "Piece", Type: "Kind", Level: "Floor", X1: "From x", Y1: "From y", X2: "To x", Y2: "To y" } } });
+    expect(mapped.problems).toEqual([]);
+    expect(mapped.plan.members.map((m) => [m.mark, m.type, m.p1, m.p2])).toEqual([["B1", "beam", { x: 0, y: 0 }, { x: 10, y: 0 }]]);
   });
 });
