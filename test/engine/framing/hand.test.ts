@@ -78,6 +78,22 @@ describe("one-way deck, strip rule (hand statics)", () => {
   });
 });
 
+describe("deck direction change (hand statics)", () => {
+  it("each deck area spans its own way and keeps its zone; a member parallel to one deck's span takes only the other's load", () => {
+    // left 0..12 spans x between B1 (x = 0) and B2 (x = 12); right 12..30 spans y onto G1 (y = 0) and G2 (y = 24)
+    const d = plan(bay([0, 12]), [
+      ["D1", "1", "one-way", "Office", "x", 0, 0, 12, 24],
+      ["D2", "1", "one-way", "Corridor", "y", 12, 0, 30, 24],
+    ]);
+    expect(d.problems).toEqual([]);
+    expect(total(d, "B1")).toBeCloseTo(6 * 24, 10);
+    expect(total(d, "B2")).toBeCloseTo(6 * 24, 10);
+    const g1 = d.members.find((m) => m.mark === "G1")!;
+    expect(g1.tributary.map((p) => [p.zone, p.from, p.to, p.width, p.endWidth])).toEqual([["Corridor", 12, 30, 12, 12]]);
+    expect(d.members.find((m) => m.mark === "B2")!.tributary.every((p) => p.zone === "Office")).toBe(true);
+  });
+});
+
 describe("two-way panel by 45-degree lines", () => {
   it("short sides carry qLx²/4, long sides q(LxLy/2 - Lx²/4) (yield-line / 45-degree rule, e.g. ACI 318 two-way slab load distribution, recalled from memory)", () => {
     const d = plan(
