@@ -99,6 +99,7 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
   const columnsOn = (level: string): Snapped[] => colIndex(level).list;
   const columnAt = (level: string, p: Point): Snapped | undefined => colIndex(level).at.get(`${p.x},${p.y}`);
   const foundations = snapped.filter((m) => m.type === "foundation");
+  const allMarks = new Set(snapped.map((m) => m.mark));
 
   // pairs on one level: duplicate columns, collinear overlaps, crossings
   const bearings: DerivedBearing[] = [];
@@ -185,7 +186,8 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     }
     const f = foundations.find((c) => samePoint(c.p1, p));
     if (f) return { mark: f.mark, at: null };
-    const mark = `F-${m.mark}`;
+    let mark = `F-${m.mark}`;
+    for (let k = 2; allMarks.has(mark); k++) mark = `F-${m.mark}-${k}`; // never a mark of the Framing table
     if (!added.some((a) => a.mark === mark)) added.push({ ...rowOf({ ...m, mark, type: "foundation", p1: p, p2: p, extra: {} }, null, null, null), source: cell });
     return { mark, at: null };
   };

@@ -51,6 +51,9 @@ describe("supports, bearings and column stacks", () => {
     expect(m("C2a").startSupport).toBe("F9");
     expect(m("C1a").startSupport).toBe("F-C1a");
     expect(m("F-C1a").type).toBe("foundation");
+    // an added foundation never takes a mark of the Framing table
+    const taken = plan([["C1", "column", "1", 0, 0], ["F-C1", "beam", "1", 0, 0, 5, 0]], [], [], levels);
+    expect(taken.members.find((x) => x.mark === "C1")!.startSupport).toBe("F-C1-2");
   });
 
   it("a beam passing over a column is continuous over it (a bearing on the column); walls stand on the level below or a foundation", () => {
