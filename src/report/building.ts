@@ -113,7 +113,7 @@ export function reactionSummary(record: TakedownRecord): Html | null {
       el("td", { class: "mark", "data-role": k === 0 ? "start-support" : "end-support" }, m.supports[k]?.mark ?? ""),
       ...cases.map((c) => numCell(r[c]?.[k] ?? null, "force", { "data-case": c, "data-end": k === 0 ? "start" : "end" })),
     ];
-    return el("tr", { "data-role": "reactions", "data-mark": m.mark }, el("td", { class: "mark" }, m.mark), el("td", {}, m.level), ...end(0), ...end(1));
+    return el("tr", { "data-role": "reactions", "data-member": m.mark }, el("td", { class: "mark" }, m.mark), el("td", {}, m.level), ...end(0), ...end(1));
   });
   const caseHeads = (): Html[] => cases.map((c) => el("th", { class: "num" }, c));
   return el(
