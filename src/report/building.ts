@@ -15,13 +15,17 @@ import type { TakedownRecord } from "./collect";
 import { gravityCombinations } from "./factored";
 import { DECIMALS, el, fixed, numCell, type Html } from "./html";
 
-/** Area load unit of the tables (psf or kPa) and the factor from result force per area (kip/ft², kN/m²) to it. */
-export const AREA_LOAD = { US: { unit: "psf", perResult: 1000 }, SI: { unit: "kPa", perResult: 1 } } as const;
+/**
+ * Area load unit of the tables (psf or kPa), the factor from result force per area (kip/ft²,
+ * kN/m²) to it, and its decimals: 0.1 psf and 0.01 kPa (about 0.2 psf), as zone loads are
+ * entered (common practice).
+ */
+export const AREA_LOAD = { US: { unit: "psf", perResult: 1000, decimals: 1 }, SI: { unit: "kPa", perResult: 1, decimals: 2 } } as const;
 
 /** The load schedule: every zone of the Zones table with its area loads per case and whether its live load may be reduced. */
 export function loadSchedule(record: TakedownRecord): Html {
   const cases = record.model.cases;
-  const unit = AREA_LOAD[record.model.units].unit;
+  const { unit, decimals } = AREA_LOAD[record.model.units];
   const rows = record.zones.map((z) =>
     el(
       "tr",
@@ -30,7 +34,7 @@ export function loadSchedule(record: TakedownRecord): Html {
       ...cases.map((c) => {
         const v = z.loads[c];
         // A blank cell: the case does not act on the zone (docs/interface.md section 2).
-        return v === undefined ? el("td", { class: "num", "data-case": c }, "—") : el("td", { class: "num", "data-case": c, "data-value": String(v) }, fixed(v, 1));
+        return v === undefined ? el("td", { class: "num", "data-case": c }, "—") : el("td", { class: "num", "data-case": c, "data-value": String(v) }, fixed(v, decimals));
       }),
       el("td", { "data-role": "reducible" }, z.reducible ? "yes" : "no"),
     ),
@@ -207,10 +211,10 @@ export function levelCheckTable(record: TakedownRecord): Html | null {
   const checks = levelChecks(record);
   if (checks.length === 0) return null;
   const u = RESULT_UNITS[record.model.units];
-  const { unit, perResult } = AREA_LOAD[record.model.units];
+  const { unit, perResult, decimals } = AREA_LOAD[record.model.units];
   const rows = checks.map((r) => {
     const pressure = r.area > 0 ? (r.applied * perResult) / r.area : null;
-    const range = r.zoneRange === null ? "—" : r.zoneRange[0] === r.zoneRange[1] ? fixed(r.zoneRange[0], 1) : `${fixed(r.zoneRange[0], 1)} to ${fixed(r.zoneRange[1], 1)}`;
+    const range = r.zoneRange === null ? "—" : r.zoneRange[0] === r.zoneRange[1] ? fixed(r.zoneRange[0], decimals) : `${fixed(r.zoneRange[0], decimals)} to ${fixed(r.zoneRange[1], decimals)}`;
     const other = r.applied - r.fromZones;
     return el(
       "tr",
@@ -219,7 +223,7 @@ export function levelCheckTable(record: TakedownRecord): Html | null {
       el("th", { scope: "row" }, r.loadCase),
       numCell(r.area, "area", { "data-field": "area" }),
       numCell(r.applied, "force", { "data-field": "applied" }),
-      pressure === null ? el("td", { class: "num", "data-field": "pressure" }, "—") : el("td", { class: "num", "data-field": "pressure", "data-value": String(pressure) }, fixed(pressure, 1)),
+      pressure === null ? el("td", { class: "num", "data-field": "pressure" }, "—") : el("td", { class: "num", "data-field": "pressure", "data-value": String(pressure) }, fixed(pressure, decimals)),
       el("td", { class: "num", "data-field": "zone-loads" }, range),
       numCell(r.fromZones, "force", { "data-field": "from-zones" }),
       el("td", { class: "num", "data-field": "other", "data-value": String(other) }, formatDifference(other, [r.applied, r.fromZones], DECIMALS.force)),

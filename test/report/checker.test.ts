@@ -175,6 +175,36 @@ describe.skipIf(missing !== null)("the report's building-wide tables and print f
     expect(await page.locator('table[data-role="load-schedule"] tr[data-role="zone"]:first-child td[data-case="L"]').textContent()).toBe("—");
   });
 
+  it("sums the per-level loads of both samples to the takedown JSON's applied load per case, and prints the SI sample's schedule as its Zones sheet", async () => {
+    const SAMPLE_SI = join(ROOT, "sample-workbooks", "timber-house-si.xlsx");
+    for (const [file, units] of [[SAMPLE_US, "US"], [SAMPLE_SI, "SI"]] as const) {
+      const jsonPath = join(dir, `${units}.json`);
+      expect((await cli("takedown", file, "--json", jsonPath, "--units", units)).status).toBe(0);
+      const json = JSON.parse(readFileSync(jsonPath, "utf8")) as TakedownJson;
+      const out = join(dir, `${units}-summary.html`);
+      expect((await cli("report", file, "-o", out, "--summary", "--units", units)).status).toBe(0);
+      await open(readFileSync(out, "utf8"));
+      // Every load applied to the structure is applied on some level: the levels' direct loads add up to the balance's applied load (statics).
+      for (const [c, b] of Object.entries(json.balance)) {
+        const perLevel = await values(`tr[data-role="level-check"][data-case="${c}"] [data-field="applied"]`);
+        near(perLevel.reduce((s, v) => s + v, 0), b.applied, `${units} Σ levels ${c}`);
+        near(await value(`tr[data-role="level-total"][data-case="${c}"] [data-field="balance"]`), b.applied, `${units} balance ${c}`);
+      }
+      if (units === "SI") {
+        const zones = await zonesSheet(file);
+        const printed = await page.locator('table[data-role="load-schedule"] tr[data-role="zone"]').evaluateAll((trs) =>
+          trs.map((tr) => [tr.querySelector('[data-role="zone-name"]')!.textContent!, Array.from(tr.querySelectorAll("td[data-value]")).map((td) => ({ c: td.getAttribute("data-case")!, v: Number(td.getAttribute("data-value")), text: td.textContent! }))] as const),
+        );
+        expect(printed.map(([n]) => n)).toEqual([...zones.keys()]);
+        for (const [name, cells] of printed) {
+          expect(Object.fromEntries(cells.map(({ c, v }) => [c, v])), name).toEqual(zones.get(name)!.loads);
+          // kPa to 0.01 (0.96 kPa roof live load printed as entered).
+          for (const { c, v, text } of cells) expect(text, `${name} ${c}`).toBe(v.toFixed(2));
+        }
+      }
+    }
+  });
+
   it("gives the framing's reactions, load schedule and per-level load check as the hand arithmetic does", async () => {
     const framing = join(dir, "framing.xlsx");
     await writeSheets(framing, framingSheets(), "Invented framing");
