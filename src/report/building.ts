@@ -126,7 +126,7 @@ export function reactionSummary(record: TakedownRecord): Html | null {
     el(
       "thead",
       {},
-      el("tr", {}, el("th", { rowspan: 2 }, "Member"), el("th", { rowspan: 2 }, "Level"), el("th", { colspan: cases.length + 1 }, `Start end (${u.force})`), el("th", { colspan: cases.length + 1 }, `End end (${u.force})`)),
+      el("tr", {}, el("th", { rowspan: 2 }, "Member"), el("th", { rowspan: 2 }, "Level"), el("th", { colspan: cases.length + 1 }, `Start (${u.force})`), el("th", { colspan: cases.length + 1 }, `End (${u.force})`)),
       el("tr", {}, el("th", {}, "Bears on"), ...caseHeads(), el("th", {}, "Bears on"), ...caseHeads()),
     ),
     el("tbody", {}, ...rows),

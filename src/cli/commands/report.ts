@@ -226,7 +226,7 @@ export const reportDemoPart: DemoPart = {
     const output = join(ctx.outDir, "steel-office-us-report.html");
     await writeTextAtomically(output, r.html);
     const members = allMembers(r.record!);
-    io.out(`${members.length} members detailed (every beam, girder and column), with the column schedule, foundation reactions and load balance.`);
+    io.out(`${members.length} members detailed (every beam, girder and column), after the load schedule, code provisions, beam end reactions, load check per level, column schedule, foundation reactions and load balance; printed pages carry a running header and "Page x of y".`);
     io.out(`Report: ${output}`);
     return r.status;
   },
