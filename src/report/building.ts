@@ -173,6 +173,8 @@ export function levelChecks(record: TakedownRecord): LevelCheck[] {
   const out: LevelCheck[] = [];
   const levels = [...record.levels];
   for (const m of record.members.values()) if (m.level !== "" && !levels.includes(m.level)) levels.push(m.level);
+  // Members without a level (foundations, walls as entered) count when a load is applied on them directly, so the levels add up to the balance.
+  if ([...record.members.values()].some((m) => m.level === "" && m.loads.some((l) => l.origin.kind !== "member"))) levels.push("");
   for (const level of levels) {
     const members: MemberLoads[] = [...record.members.values()].filter((m) => m.level === level);
     for (const c of record.model.cases) {
@@ -219,7 +221,7 @@ export function levelCheckTable(record: TakedownRecord): Html | null {
     return el(
       "tr",
       { "data-role": "level-check", "data-level": r.level, "data-case": r.loadCase },
-      el("td", {}, r.level),
+      el("td", {}, r.level === "" ? "(no level)" : r.level),
       el("th", { scope: "row" }, r.loadCase),
       numCell(r.area, "area", { "data-field": "area" }),
       numCell(r.applied, "force", { "data-field": "applied" }),

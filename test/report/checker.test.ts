@@ -244,6 +244,21 @@ describe.skipIf(missing !== null)("the report's building-wide tables and print f
     near(await value('tr[data-role="level-total"][data-case="L"] [data-field="balance"]'), appliedL, "balance L");
   });
 
+  it("counts a load applied on a foundation (no level) so the levels still add up to the applied load", async () => {
+    const sheets = framingSheets();
+    sheets.Loads = [...sheets.Loads!, ["F1", "point", "D", 5000, null, null, null]];
+    const file = join(dir, "framing-footing-load.xlsx");
+    await writeSheets(file, sheets, "t");
+    const out = join(dir, "framing-footing-load.html");
+    expect((await cli("report", file, "-o", out, "--summary")).status).toBe(0);
+    await open(readFileSync(out, "utf8"));
+    // By hand: 5000 lb on F1; the level's own dead load as in the framing test, 27.0 kip.
+    near(await value('tr[data-role="level-check"][data-level=""][data-case="D"] [data-field="applied"]'), 5, "no level D");
+    expect(await page.locator('tr[data-role="level-check"][data-level=""][data-case="D"] td').first().textContent()).toBe("(no level)");
+    near(await value('tr[data-role="level-total"][data-case="D"] [data-field="applied"]'), 27 + 5, "all levels D");
+    near(await value('tr[data-role="level-total"][data-case="D"] [data-field="balance"]'), 27 + 5, "balance D");
+  });
+
   it("numbers every printed page 'Page x of y' under a running header with project and job; --summary is much shorter", async () => {
     await open(sampleHtml);
     const fullPages = pdfPages(await printPdf("sample-full.pdf"));
