@@ -14,7 +14,8 @@ import { a1 } from "../engine/a1";
 import { governingCombination } from "./factored";
 import type { Problem } from "../workbook/takedown-api";
 import { cellAddress, sheetRef } from "../workbook/a1";
-import type { CellValue, WorkbookPort } from "../workbook/port";
+import type { CellValue, RangeData, WorkbookPort } from "../workbook/port";
+import type { CellRef, LoadCase } from "../engine/takedown/types";
 import { DEFAULT_TAKEDOWN_SHEET, sheetTitle } from "../workbook/takedown-build";
 import type { TakedownJson, TakedownOptions } from "../workbook/takedown-api";
 
@@ -29,6 +30,28 @@ export interface TakedownRecord {
   readonly json: TakedownJson;
   /** Every member's loads, supports and reactions, in takedown order. */
   readonly members: ReadonlyMap<string, MemberLoads>;
+  /** The Zones table as read: each zone's area loads (psf or kPa) per case and its Reducible flag, in table order. */
+  readonly zones: readonly ZoneLoads[];
+}
+
+/** One row of the Zones table as the report prints it (the load schedule). */
+export interface ZoneLoads {
+  readonly name: string;
+  /** Area load of each case the zone has a value for (psf or kPa); a case absent here does not act on the zone. */
+  readonly loads: Readonly<Partial<Record<LoadCase, number>>>;
+  readonly reducible: boolean;
+}
+
+/** A zone's area loads read from the Zones table's cells (numbers stored as text read as numbers; anything else NaN). */
+export function zoneLoadsOf(model: TakedownModel, table: RangeData): ZoneLoads[] {
+  const at = (row: number, col: number): CellValue | undefined => table.values[row - table.top]?.[col - table.left];
+  const numberOf = (v: CellValue | undefined): number => (typeof v === "number" ? v : typeof v === "string" && v.trim() !== "" ? Number(v.trim()) : Number.NaN);
+  const zones = [...model.zones.values()].sort((a, b) => a.nameCell.row - b.nameCell.row);
+  return zones.map((z) => {
+    const loads: Partial<Record<LoadCase, number>> = {};
+    for (const [c, cell] of Object.entries(z.loadCells) as [LoadCase, CellRef][]) loads[c] = numberOf(at(cell.row, cell.col));
+    return { name: z.name, loads, reducible: z.reducible };
+  });
 }
 
 /** Largest relative difference tolerated between the results read here and the build's JSON (both are the same cells). */
@@ -84,7 +107,7 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const path = checkPath(model);
   const memberLoads = loadsOfMembers({ model, plan, deliveries: path.deliveries, placedLoads: path.placedLoads, read });
   const gaps = reportGaps(plan, model, memberLoads, json.problems);
-  return { options, model, plan, levels: planned.levels, json: gaps.length === 0 ? json : { ...json, problems: [...json.problems, ...gaps] }, members: memberLoads };
+  return { options, model, plan, levels: planned.levels, json: gaps.length === 0 ? json : { ...json, problems: [...json.problems, ...gaps] }, members: memberLoads, zones: zoneLoadsOf(model, zones) };
 }
 
 /** First path in a value where a number is not finite (the report would print "?" there), or null. */

@@ -7,7 +7,8 @@
 import { isFlexural } from "../engine/takedown/model";
 import { RESULT_UNITS } from "../engine/takedown/units";
 import type { TakedownRecord } from "./collect";
-import { children, el, join, type Html } from "./html";
+import { levelCheckTable, loadSchedule, provisionsTable, reactionSummary } from "./building";
+import { children, el, join, type Child, type Html } from "./html";
 import { contentsLine, memberSection, sectionId } from "./member-section";
 import { balanceTable, columnSchedule, foundationTable, problemList } from "./schedule";
 import { assumptions, CODE_EDITIONS, REPORT_CAUTION } from "./text";
@@ -25,6 +26,10 @@ export interface ReportInput {
   readonly members: readonly string[];
   /** What generated the report, e.g. "Loadpath 0.1.0". */
   readonly generator?: string;
+  /** Job number or name, printed on the title page and in the running header. */
+  readonly job?: string;
+  /** Tables only: no per-member sheets (`--summary`). */
+  readonly summary?: boolean;
 }
 
 /** The Content-Security-Policy of every report: nothing may be loaded. */
@@ -73,6 +78,13 @@ section.member.flexural { break-before: page; }
 section.first-axial { break-before: page; }
 section.member.axial { break-inside: avoid; margin-top: 5mm; }
 section.schedules { break-before: page; }
+section.title-page { break-after: page; }
+section.building { break-before: page; }
+.running-head { display: none; }
+table.provisions { font-size: 8pt; }
+table.reactions td.mark { font-size: 7pt; }
+tr[data-role="level-total"] td, tr[data-role="level-total"] th { border-top: 1.5px solid #1f2328; }
+.toc { columns: 1; }
 .figures { font-size: 0; orphans: 1; widows: 1; }
 figure.drawing { display: inline-block; vertical-align: top; margin: 0 4mm 3mm 0; width: 84mm; max-width: 100%; break-inside: avoid; page-break-inside: avoid; font-size: 9.5pt; }
 figure.drawing:nth-child(2n) { margin-right: 0; }
@@ -97,6 +109,7 @@ function titleBlock(input: ReportInput): Html {
       "tbody",
       {},
       row("Project", el("span", { "data-role": "project" }, input.project)),
+      ...(input.job !== undefined ? [row("Job", el("span", { "data-role": "job" }, input.job))] : []),
       row("Engineer", fill(), "fill"),
       row("Checked by", fill(), "fill"),
       row("Date", el("span", { "data-role": "date" }, input.date)),
@@ -137,12 +150,46 @@ function summary(input: ReportInput): string {
 }
 
 /**
+ * Text as a CSS string literal: every character but letters, digits and spaces written as a CSS
+ * escape (so a quote, a backslash or "</style>" in a project name cannot end the string or the
+ * style element); control characters left out.
+ */
+export function cssString(text: string): string {
+  let out = "";
+  for (const ch of text) {
+    const code = ch.codePointAt(0)!;
+    if (code < 0x20 || (code >= 0x7f && code < 0xa0)) continue;
+    out += /[A-Za-z0-9 ]/.test(ch) ? ch : `\\${code.toString(16)} `;
+  }
+  return `"${out}"`;
+}
+
+/** The running header and footer of every printed page (CSS paged media margin boxes, with page counters). */
+export function pageCss(input: ReportInput): string {
+  const head = input.job !== undefined && input.job !== "" ? `${input.project} · Job ${input.job}` : input.project;
+  const box = "font-family: Arial, \"Liberation Sans\", \"DejaVu Sans\", sans-serif; font-size: 7.5pt; color: #4b5563;";
+  return `@page {
+  @top-left { content: ${cssString(head)}; ${box} }
+  @top-right { content: ${cssString(`Load takedown calculation report · ${input.date}`)}; ${box} }
+  @bottom-left { content: "Results need a qualified engineer\\2019 s review; local codes govern."; ${box} }
+  @bottom-right { content: "Page " counter(page) " of " counter(pages); ${box} }
+}`;
+}
+
+/** One numbered section of the building-wide part: id, heading and content. */
+interface Part {
+  readonly id: string;
+  readonly title: string;
+  readonly content: Html;
+}
+
+/**
  * The whole report.
  * @param input - the takedown, the title block's fields and the members to detail
  * @returns a complete HTML document (UTF-8), self-contained
  */
 export function renderReport(input: ReportInput): string {
-  const marks = chosen(input);
+  const marks = input.summary === true ? [] : chosen(input);
   const { record } = input;
   const sections: Html[] = [];
   const firstAxial = marks.find((mark) => !isFlexural(record.members.get(mark)!.type));
@@ -153,22 +200,30 @@ export function renderReport(input: ReportInput): string {
   const problems = problemList(record);
   const schedule = columnSchedule(record);
   const foundations = foundationTable(record);
+  const reactions = reactionSummary(record);
+  const levels = levelCheckTable(record);
+  const parts: Part[] = [];
+  const add = (id: string, title: string, ...content: Child[]): void => void parts.push({ id, title, content: join(content) });
+  add("load-schedule", "Load schedule", el("p", { class: "note" }, `The Zones table as read: area loads per case (a dash: the case does not act on the zone) and whether the zone's live load may be reduced (ASCE/SEI 7-22 Sec. 4.7).`), loadSchedule(record));
+  add("provisions", "Code provisions used", provisionsTable(record));
+  add("assumptions", "Assumptions and methods", el("ul", {}, ...assumptions(record.model.units).map((a) => el("li", {}, a))));
+  if (reactions) add("reactions", "Beam end reactions", el("p", { class: "note" }, "Every beam, girder and joist: the vertical reaction at each end per load case, unfactored, live load not reduced (up +), and the member or column each end bears on: the loads its connections transfer."), reactions);
+  if (levels) add("level-check", "Load check per level", el("p", { class: "note" }, "For each level and case: the load applied directly on the level's members (zone loads, line loads wX and Loads rows, not the reactions received from other members), the loaded area (each zone load's width × loaded length), their ratio against the zones' area loads, the same zone loads × area from the Zones table, and the difference: the line and point loads entered. The total of every level equals the load balance's applied load."), levels);
+  if (schedule) add("columns", "Column schedule", el("p", { class: "note" }, "Each stack from the top level down: cumulative unfactored loads, live load reduction (ASCE/SEI 7-22 Sec. 4.7) and the governing gravity combination (Sec. 2.3.1, LRFD, with the reduced live load)."), schedule);
+  if (foundations) add("foundations", "Foundation and wall reactions", el("p", { class: "note" }, "Unfactored, live load not reduced."), foundations);
+  add("balance", "Load balance", el("p", { class: "note" }, "Applied load = foundation and wall reactions, per case."), balanceTable(record));
+  if (problems) add("problems", "Problems found in the tables", el("p", {}, "Members with a problem are left out of the takedown; the others are computed."), problems);
+  add(
+    "members",
+    "Member sheets",
+    el("p", {}, summary(input)),
+    input.summary === true ? el("p", { "data-role": "summary-note" }, "Summary report: the member sheets are left out (run without --summary for them).") : (contents(input, marks) ?? el("p", {}, "No member was chosen for a detailed section.")),
+  );
+  const toc = el("ol", { class: "toc", "data-role": "contents" }, ...parts.map((p) => el("li", {}, el("a", { href: `#${p.id}` }, p.title))));
   const body = join([
-    el("h1", {}, "Load takedown: calculation report"),
-    titleBlock(input),
-    caution("caution-top"),
-    el("section", { class: "assumptions", "data-role": "assumptions" }, el("h2", {}, "Assumptions and methods"), el("ul", {}, ...assumptions(record.model.units).map((a) => el("li", {}, a)))),
-    el("section", { class: "overview" }, el("h2", {}, "Members in this report"), el("p", {}, summary(input)), contents(input, marks) ?? el("p", {}, "No member was chosen for a detailed section.")),
-    problems ? el("section", { class: "problems-section" }, el("h2", {}, "Problems found in the tables"), el("p", {}, "Members with a problem are left out of the takedown; the others are computed."), problems) : null,
+    el("section", { class: "title-page", "data-role": "title-page" }, el("h1", {}, "Load takedown: calculation report"), titleBlock(input), caution("caution-top"), el("h2", {}, "Contents"), toc),
+    el("section", { class: "building" }, ...parts.map((p, k) => el("section", { id: p.id, "data-role": `part-${p.id}` }, el("h2", {}, `${k + 1}. ${p.title}`), p.content))),
     ...sections,
-    el(
-      "section",
-      { class: "schedules" },
-      schedule ? join([el("h2", {}, "Column schedule"), el("p", { class: "note" }, "Each stack from the top level down: cumulative unfactored loads, live load reduction (ASCE/SEI 7-22 Sec. 4.7) and the governing gravity combination (Sec. 2.3.1, LRFD, with the reduced live load)."), schedule]) : null,
-      foundations ? join([el("h3", {}, "Foundation reactions (unfactored, live load not reduced)"), foundations]) : null,
-      el("h3", {}, "Load balance: applied load = foundation and wall reactions, per case"),
-      balanceTable(record),
-    ),
     el("footer", {}, caution("caution-bottom")),
   ]);
   return `<!doctype html>
@@ -179,6 +234,7 @@ export function renderReport(input: ReportInput): string {
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${children(`Calculation report: ${input.project}`)}</title>
 <style>${REPORT_CSS}</style>
+<style>${pageCss(input)}</style>
 </head>
 <body>
 ${body.html}

@@ -32,17 +32,57 @@ function attrText(attrs: Attrs): string {
 }
 
 /**
+ * Markup as a tree of pieces, joined once when its text is first asked for: a report of a
+ * thousand members nests elements ten deep, and joining at every level would copy the whole
+ * report that many times.
+ */
+class Markup implements Html {
+  private text: string | undefined;
+  constructor(private readonly parts: readonly (string | Html)[]) {}
+  /** Append the pieces, in order, to `out`. */
+  write(out: string[]): void {
+    if (this.text !== undefined) {
+      out.push(this.text);
+      return;
+    }
+    for (const p of this.parts) {
+      if (typeof p === "string") out.push(p);
+      else if (p instanceof Markup) p.write(out);
+      else out.push(p.html);
+    }
+  }
+  get html(): string {
+    if (this.text === undefined) {
+      const out: string[] = [];
+      this.write(out);
+      this.text = out.join("");
+    }
+    return this.text;
+  }
+}
+
+/** The pieces of children: text escaped, markup kept, nothing for null, undefined or false. */
+function pieces(kids: readonly Child[]): (string | Html)[] {
+  const out: (string | Html)[] = [];
+  for (const k of kids) {
+    if (k === null || k === undefined || k === false) continue;
+    out.push(typeof k === "string" ? escapeXml(k) : k);
+  }
+  return out;
+}
+
+/**
  * Markup kept as it is: for SVG strings from the diagram renderers (which escape their own
  * text) and for markup built here.
  * @param html - trusted markup
  */
 export function raw(html: string): Html {
-  return { html };
+  return new Markup([html]);
 }
 
-/** Children as markup: text escaped. */
+/** Children as markup text: text escaped. */
 export function children(...kids: readonly Child[]): string {
-  return kids.map((k) => (k === null || k === undefined || k === false ? "" : typeof k === "string" ? escapeXml(k) : k.html)).join("");
+  return new Markup(pieces(kids)).html;
 }
 
 /**
@@ -52,12 +92,12 @@ export function children(...kids: readonly Child[]): string {
  * @param kids - children: text (escaped) or markup
  */
 export function el(name: string, attrs: Attrs, ...kids: readonly Child[]): Html {
-  return { html: `<${name}${attrText(attrs)}>${children(...kids)}</${name}>` };
+  return new Markup([`<${name}${attrText(attrs)}>`, ...pieces(kids), `</${name}>`]);
 }
 
 /** Several pieces of markup as one. */
 export function join(parts: readonly Child[]): Html {
-  return { html: children(...parts) };
+  return new Markup(pieces(parts));
 }
 
 /**

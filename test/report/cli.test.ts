@@ -120,6 +120,8 @@ describe("loadpath report", () => {
       [[], /no input workbook given/],
       [[FRAMING, "-o", out, "--all", "--only", "B1"], /give --only or --all, not both/],
       [[FRAMING, "-o", out, "--only", " , "], /--only lists no mark/],
+      [[FRAMING, "-o", out, "--summary", "--only", "B1"], /--summary leaves out the member sheets; give it without --only or --all/],
+      [[FRAMING, "-o", out, "--summary", "--all"], /--summary leaves out the member sheets/],
       [[FRAMING, "-o", out, "--only", "B1,B9"], /not in the takedown: B9/],
       [[FRAMING, "-o", out, "--members-table", "Members"], /Unknown option '--members-table'/],
       [[FRAMING, "-o", out, "--units", "metric"], /--units is US or SI/],

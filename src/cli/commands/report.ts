@@ -20,23 +20,28 @@ const USAGE = `Usage: loadpath report <in.xlsx> [-o <report.html>] [--only <mark
                        [--zones <name>] [--members <name>] [--loads <name>]
                        [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
                        [--units US|SI] [--sheet <name>] [--replace] [--project <name>] [--date <text>]
+                       [--job <text>] [--summary]
 
-Writes a printable calculation report of the workbook's load takedown: a title block (project,
-engineer, date, units, code editions), the assumptions, a section for each chosen member (its
-loads and where each comes from, reactions, shear and moment per load case and for the
-governing factored combination with the source of each formula, live load reduction, free-body,
-shear and moment diagrams and its load path), the column schedule with cumulative loads and
-live load reduction, the foundation reactions and the load balance. One HTML file with no
-scripts and nothing to load; print it to PDF from a browser.
+Writes a printable calculation report of the workbook's load takedown: a title page (project,
+job, engineer, date, units, code editions) with the contents, the load schedule (zones, loads
+per case, reducible), the code provisions used with their sources, the assumptions, every
+beam's end reactions per case, a load check per level, the column schedule, the foundation and
+wall reactions and the load balance, then a sheet for each chosen member (its loads and where
+each comes from, reactions, shear and moment per case and for the governing factored
+combination, live load reduction, free-body, shear and moment diagrams and its load path).
+Printed pages carry a running header (project, job, date) and "Page x of y". One HTML file with
+no scripts and nothing to load; print it to PDF from a browser.
 
   -o, --output     HTML file to write (never the input file); without -o the takedown and the
                    report are built and checked, and nothing is written
   --only           marks of the members to detail, separated by commas (repeatable)
   --all            every beam, girder, joist and column (the default)
+  --summary        the tables only, without the member sheets
 ${TABLE_OPTIONS_USAGE}
   --project        project name (default: the workbook's title, its defined name Project,
                    else the file name)
   --date           date printed in the title block (default: today)
+  --job            job number or name, printed on the title page and in every page's header
 
 Problems are listed on stderr as Sheet!A1: message and in the report. Exit status: 0 written
 without problems, 1 problems found (the report of what could be built is still written),
@@ -91,6 +96,9 @@ export interface ReportRun {
   readonly members?: readonly string[];
   readonly project?: string;
   readonly date?: string;
+  readonly job?: string;
+  /** Tables only, no member sheets. */
+  readonly summary?: boolean;
 }
 
 /** Outcome of {@link reportOfFile}. */
@@ -127,7 +135,16 @@ export async function reportOfFile(input: string, run: TakedownRun, report: Repo
     io.err(`loadpath report: not in the takedown: ${unknown.join(", ")} (a mark of the Members table, spelled as there, not left out by a problem).`);
     return { status: EXIT.usage };
   }
-  const html = renderReport({ record, project: report.project ?? projectName(workbook, input), sourceFile: basename(input), date: report.date ?? today(), members, generator: "Loadpath" });
+  const html = renderReport({
+    record,
+    project: report.project ?? projectName(workbook, input),
+    sourceFile: basename(input),
+    date: report.date ?? today(),
+    members,
+    generator: "Loadpath",
+    ...(report.job !== undefined ? { job: report.job } : {}),
+    ...(report.summary === true ? { summary: true } : {}),
+  });
   return { status: record.json.problems.length > 0 ? EXIT.failed : EXIT.ok, html, record };
 }
 
@@ -146,6 +163,8 @@ const report: Command = {
         ...tableOptions(),
         project: { type: "string" },
         date: { type: "string" },
+        job: { type: "string" },
+        summary: { type: "boolean" },
       },
       io,
     );
@@ -160,6 +179,10 @@ const report: Command = {
       io.err("loadpath report: give --only or --all, not both.");
       return EXIT.usage;
     }
+    if (v.summary === true && (onlyValues.length > 0 || v.all === true)) {
+      io.err("loadpath report: --summary leaves out the member sheets; give it without --only or --all.");
+      return EXIT.usage;
+    }
     const marks = parseMarks(onlyValues);
     if (onlyValues.length > 0 && marks.length === 0) {
       io.err("loadpath report: --only lists no mark.");
@@ -171,15 +194,21 @@ const report: Command = {
       return EXIT.usage;
     }
     return usageOnThrow("report", io, async () => {
-      const r = await reportOfFile(input, checked.run, { ...(marks.length > 0 ? { members: marks } : {}), ...(typeof v.project === "string" ? { project: v.project } : {}), ...(typeof v.date === "string" ? { date: v.date } : {}) }, io);
+      const r = await reportOfFile(input, checked.run, {
+          ...(marks.length > 0 ? { members: marks } : {}),
+          ...(typeof v.project === "string" ? { project: v.project } : {}),
+          ...(typeof v.date === "string" ? { date: v.date } : {}),
+          ...(typeof v.job === "string" ? { job: v.job } : {}),
+          ...(v.summary === true ? { summary: true } : {}),
+        }, io);
       if (r.html === undefined) return r.status;
-      const n = marks.length > 0 ? marks.length : allMembers(r.record!).length;
+      const what = v.summary === true ? "Summary calculation report (tables only, no member sheets)" : `Calculation report of ${marks.length > 0 ? marks.length : allMembers(r.record!).length} member(s)`;
       if (output === undefined) {
-        io.out(`Calculation report of ${n} member(s) built and checked; check only, nothing written (give -o <report.html> to write it).`);
+        io.out(`${what} built and checked; check only, nothing written (give -o <report.html> to write it).`);
         return r.status;
       }
       await writeTextAtomically(resolve(output), r.html);
-      io.out(`Calculation report of ${n} member(s) written to ${output} (open it in a browser; print to PDF from there).`);
+      io.out(`${what} written to ${output} (open it in a browser; print to PDF from there).`);
       return r.status;
     });
   },
@@ -197,7 +226,7 @@ export const reportDemoPart: DemoPart = {
     const output = join(ctx.outDir, "steel-office-us-report.html");
     await writeTextAtomically(output, r.html);
     const members = allMembers(r.record!);
-    io.out(`${members.length} members detailed (every beam, girder and column), with the column schedule, foundation reactions and load balance.`);
+    io.out(`${members.length} members detailed (every beam, girder and column), after the load schedule, code provisions, beam end reactions, load check per level, column schedule, foundation reactions and load balance; printed pages carry a running header and "Page x of y".`);
     io.out(`Report: ${output}`);
     return r.status;
   },
