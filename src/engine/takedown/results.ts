@@ -13,7 +13,7 @@ import type { CellValue, LoadCase, Problem, UnitSystem } from "./types";
 export interface MemberResult {
   readonly type: string;
   readonly level: string;
-  /** Per case: [first support, second support] for beams; [base] for columns. */
+  /** Per case: one value per support in order along the member for beams ([start, end] on two supports); [base] for columns. */
   readonly reactions: Readonly<Record<string, readonly number[]>>;
   readonly shearMax: Readonly<Record<string, number>>;
   readonly momentMax: Readonly<Record<string, number>>;
@@ -110,7 +110,10 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
       members[m.mark] = {
         type: m.type,
         level: m.level,
-        reactions: Object.fromEntries(caseIndex.map(({ key, i }) => [key, [at(layout.r1[i]!), at(layout.r2[i]!)]])),
+        // One value per support in order along the member: first, the interior ones (R1 below), last.
+        reactions: Object.fromEntries(
+          caseIndex.map(({ key, i }) => [key, [at(layout.r1[i]!), ...Array.from({ length: place.interiors ?? 0 }, (_, k) => numberAt(read, row + 1 + k, layout.r1[i]!)), at(layout.r2[i]!)]]),
+        ),
         shearMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.vMax[k]!)])),
         momentMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.mMax[k]!)])),
         tributaryArea,
