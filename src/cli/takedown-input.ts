@@ -22,6 +22,8 @@ export interface TakedownRun {
   readonly zones?: string;
   readonly members?: string;
   readonly loads?: string;
+  /** Bearings table (interior supports of continuous members). */
+  readonly bearings?: string;
   readonly mapping?: ColumnMapping;
   /** Header rows given with `--header-row` (1-based sheet rows). */
   readonly headerRows?: HeaderRows;
@@ -90,6 +92,7 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
     zones: { type: "string" },
     members: { type: "string" },
     loads: { type: "string" },
+    bearings: { type: "string" },
     map: { type: "string", multiple: true },
     "header-row": { type: "string", multiple: true },
     sheet: { type: "string" },
@@ -98,9 +101,10 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
 }
 
 /** The usage lines of {@link tableOptions}, shared by the verbs' help texts. */
-export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads <name>
+export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads, --bearings <name>
                  Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
                  default: the table or sheet named Zones, Members and (if present) Loads
+                 and Bearings
   --map <table>.<Column>=<your header | Group/Header | column letter>
                  a column whose header differs, e.g. --map members.Trib="Trib width",
                  --map "members.End at=End/Location" (header under the group row's
@@ -160,6 +164,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
   const zones = stringOf(values.zones);
   const members = stringOf(values.members);
   const loads = stringOf(values.loads);
+  const bearings = stringOf(values.bearings);
   return {
     run: {
       ...(unitsText !== undefined ? { units: unitsText } : {}),
@@ -168,6 +173,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
       ...(zones !== undefined ? { zones } : {}),
       ...(members !== undefined ? { members } : {}),
       ...(loads !== undefined ? { loads } : {}),
+      ...(bearings !== undefined ? { bearings } : {}),
       ...(sheet !== undefined ? { sheet } : {}),
       replace: values.replace === true,
     },
@@ -177,7 +183,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
 /** Whether the run names a table or a column mapping (rather than leaving everything to the defaults). */
 export function namesTables(run: TakedownRun): boolean {
   const mapped = run.mapping !== undefined && Object.values(run.mapping).some((m) => m !== undefined && Object.keys(m).length > 0);
-  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || mapped || run.headerRows !== undefined;
+  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || run.bearings !== undefined || mapped || run.headerRows !== undefined;
 }
 
 /**
@@ -247,11 +253,13 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
   const tooLarge = takedownMemoryProblem(await tableRowCount(port, members));
   if (tooLarge !== undefined) throw new Error(`${input}: ${tooLarge}`);
   const loads = tableName(workbook, run.loads, "Loads");
+  const bearings = tableName(workbook, run.bearings, "Bearings");
   const headerUnits = unitsShownByHeaders(workbook, [zones, members, ...(loads !== undefined ? [loads] : [])]);
   const options: TakedownOptions = {
     zones,
     members,
     ...(loads !== undefined ? { loads } : {}),
+    ...(bearings !== undefined ? { bearings } : {}),
     units: run.units ?? headerUnits ?? "US",
     ...(run.mapping ? { mapping: run.mapping } : {}),
     ...(run.headerRows ? { headerRows: run.headerRows } : {}),

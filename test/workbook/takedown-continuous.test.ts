@@ -119,6 +119,30 @@ describe("two equal spans under uniform load (Bearings table)", () => {
   });
 });
 
+describe("hand-off version (classic functions only)", () => {
+  const wD = (50 * 2) / 1000;
+
+  it("the continuous joist's results are written as values and listed; the girder below stays live formulas", async () => {
+    const { result, port } = await buildOn(twoSpan(), { bearings: "Bearings", native: true });
+    expect(result.problems).toEqual([]);
+    expect(result.valueOnly?.map((v) => v.mark)).toEqual(["J1"]);
+    const r = result.json!.members.J1!.reactions.D!;
+    close(r[1], 1.25 * wD * 20); // AISC Manual Table 3-23, two equal spans (recalled from memory)
+    close(result.json!.members.G2!.reactions.D![0], (1.25 * wD * 20 * 15) / 20);
+    const sheet = port.hf.getSheetId("Takedown")!;
+    const values = port.hf.getSheetValues(sheet);
+    const header = values.findIndex((row) => row[0] === "Mark");
+    const col = (name: string) => values[header]!.indexOf(name);
+    const rowOf = (mark: string) => values.findIndex((row, i) => i > header && row[0] === mark);
+    const j1 = rowOf("J1");
+    expect(port.hf.getCellFormula({ sheet, row: j1, col: col("D R1 (kip)") })).toBeUndefined();
+    expect(port.hf.getCellFormula({ sheet, row: j1 + 1, col: col("D R1 (kip)") })).toBeUndefined();
+    const g2 = port.hf.getCellFormula({ sheet, row: rowOf("G2"), col: col("D R1 (kip)") });
+    expect(g2).toBeDefined();
+    expect(g2).not.toMatch(/LOADPATH/);
+  });
+});
+
 describe("bad Bearings rows: a problem naming the cell, the rest still builds", () => {
   async function problemsOf(rows: RawCellContent[][]) {
     const { result } = await buildOn(twoSpan(rows), { bearings: "Bearings" });
@@ -224,5 +248,23 @@ describe.skipIf(!available && !process.env.CI)("three spans 5 + 6 + 4 m with a p
     close(result.json!.members.G2!.reactions.D![1]!, (r[1]! * 2) / 8);
     close(result.json!.balance.D!.applied, w * 15 + 7);
     close(result.json!.balance.D!.supports, w * 15 + 7);
+  });
+});
+
+describe("the Bearings table is found again from the generated sheet's title (export rebuilds it)", () => {
+  it("title with Loads and Bearings -> both options", async () => {
+    const { takedownFromTitle } = await import("../../src/cli/commands/export");
+    const { GENERATED_MARKER } = await import("../../src/workbook/port");
+    const spec = takedownFromTitle(`${GENERATED_MARKER}: load takedown (US) from Zones: Zones, Members: Members, Loads: Loads, Bearings: Bearings.`, "Takedown");
+    expect(spec?.options.bearings).toBe("Bearings");
+    expect(spec?.options.loads).toBe("Loads");
+    const without = takedownFromTitle(`${GENERATED_MARKER}: load takedown (US) from Zones: Zones, Members: Members.`, "Takedown");
+    expect(without?.options.bearings).toBeUndefined();
+  });
+
+  it("the built sheet's title names the Bearings table", async () => {
+    const { port } = await buildOn(twoSpan(), { bearings: "Bearings" });
+    const title = port.hf.getCellValue({ sheet: port.hf.getSheetId("Takedown")!, row: 0, col: 0 });
+    expect(String(title)).toMatch(/, Bearings: Bearings\.$/);
   });
 });
