@@ -188,9 +188,9 @@ function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: Sheet
   const out: AppliedLoad[] = [];
   for (let r = place.row; r < place.row + place.rows; r++) {
     const kind = textOf(source.read(r, COL.kind));
-    if (kind !== "line" && kind !== "point" && kind !== "reaction") continue;
+    if (kind !== "line" && kind !== "point" && kind !== "reaction" && kind !== "wall") continue;
     const text = textOf(source.read(r, COL.source));
-    const delivery = kind === "reaction" ? received.get(text) : undefined;
+    const delivery = kind === "reaction" ? received.get(text) : kind === "wall" ? (ix.into.get(m.index) ?? []).find((d) => d.until !== undefined && `${source.model.members[d.from]!.mark} (wall)` === text) : undefined;
     const from = delivery ? source.model.members[delivery.from]! : undefined;
     const origin: LoadOrigin = from && delivery ? { kind: "member", mark: from.mark, type: from.type, end: delivery.end } : originOf(m, text, ix.placed.get(m.index) ?? []);
     const a = numberOf(source.read(r, COL.from));
@@ -201,8 +201,10 @@ function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: Sheet
     if (flexural) {
       start = a ?? 0;
       if (kind === "line") end = b ?? (a === null ? length : a + (loaded ?? 0));
+      if (kind === "wall") end = b;
     }
-    out.push({ kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols) });
+    // A wall standing on the member is a line load over its extent (origin: the wall).
+    out.push({ kind: kind === "wall" ? "line" : kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols) });
   }
   if (m.type === "column") {
     for (const d of ix.into.get(m.index) ?? []) {

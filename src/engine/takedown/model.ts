@@ -38,6 +38,15 @@ export function isTerminal(type: MemberType): boolean {
   return type === "wall" || type === "foundation";
 }
 
+/**
+ * True for members that end the load path: foundations, and walls with no Start support. A wall
+ * whose Start support names what it bears on (a wall below, a beam, girder or joist, a
+ * foundation) hands its load down like a column.
+ */
+export function endsPath(m: Pick<Member, "type" | "start">): boolean {
+  return m.type === "foundation" || (m.type === "wall" && m.start.mark === "");
+}
+
 /** A zone of the load schedule. */
 export interface Zone {
   readonly name: string;

@@ -13,7 +13,7 @@
 import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
 import { ADD_IN_WRITER, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
 import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
-import { cellKey, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
+import { cellKey, endsPath, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
 import { RESULT_UNITS } from "./units";
 import type { CellRef, CellValue, LoadCase } from "./types";
 import { deliveryLabel, type Delivery, type InteriorSupport, type PlacedLoad } from "./validate";
@@ -100,7 +100,8 @@ function colAbs(row: number, col: number): string {
 
 /** One load row of a member block before it is written. */
 interface LoadRow {
-  readonly kind: "line" | "point" | "reaction";
+  /** "wall": a wall standing on the member, its load per unit length from `from` to `to`. */
+  readonly kind: "line" | "point" | "reaction" | "wall";
   readonly source: string;
   readonly width?: PlanCell;
   /** Start position (null = full length for a line, 0 for axial members). */
@@ -124,6 +125,10 @@ interface Context {
   readonly loadsOn: ReadonlyMap<number, readonly PlacedLoad[]>;
   readonly interiors: ReadonlyMap<number, readonly InteriorSupport[]>;
   readonly valueOnly: { row: number; col: number; mark: string; reason: string }[];
+  /** What each wall bears on (its delivery), by wall index. */
+  readonly baseOf: ReadonlyMap<number, Delivery>;
+  /** Walls and foundations whose length cell is written. */
+  readonly wallLengths: Set<number>;
 }
 
 /** Unit conversion of a pound-based input to kips, visible in the formula (US); none in SI. */
@@ -218,12 +223,19 @@ function deliveredCell(ctx: Context, d: Delivery, i: number): string | null {
 
 /** A received reaction as a load row. */
 function receivedRow(ctx: Context, d: Delivery, axial: boolean): LoadRow {
+  const from = ctx.model.members[d.from]!;
+  if (d.until !== undefined && d.at !== null) {
+    // A wall on a beam: its total per unit length, over Start at..End at of the beam.
+    const place = ctx.places.get(d.from)!;
+    const wallMags = new Map<number, string>();
+    for (const i of place.live) wallMags.set(i, a1Absolute(place.row, ctx.layout.perLength[i]!));
+    return { kind: "wall", source: `${from.mark} (wall)`, from: f(inputRef(ctx, d.at.cell)), to: f(inputRef(ctx, d.until.cell)), mags: wallMags };
+  }
   const mags = new Map<number, string>();
   for (let i = 0; i < ctx.layout.channels.length; i++) {
     const cell = deliveredCell(ctx, d, i);
     if (cell !== null) mags.set(i, cell);
   }
-  const from = ctx.model.members[d.from]!;
   return { kind: "reaction", source: deliveryLabel(from.mark, d), from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)), to: null, mags };
 }
 
@@ -251,7 +263,7 @@ function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, firs
       const b = layout.block[i]!;
       grid.set(r, b + 1, f(mag));
       if (axial || uniform || !ctx.writer.writesLoadRanges) continue;
-      grid.set(r, b, lr.kind === "line" ? "line" : "point");
+      grid.set(r, b, lr.kind === "line" || lr.kind === "wall" ? "line" : "point");
       if (lr.from !== null) grid.set(r, b + 2, f(colAbs(r, COL.from)));
       if (lr.to !== null) grid.set(r, b + 3, f(colAbs(r, COL.to)));
     }
@@ -348,11 +360,12 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   const member = writeGeometry(ctx, m, row);
   // A writer that cannot spell a continuous member (classic functions: statics of two supports only)
   // leaves its results to the add-in's functions, replaced by their values after calculation.
-  const handOff = interiors > 0 && ctx.writer.continuous !== true;
+  const handOff = (interiors > 0 || rows.some((r) => r.kind === "wall")) && ctx.writer.continuous !== true;
   const writer = handOff ? ADD_IN_WRITER : ctx.writer;
   const put = (r: number, c: number, formula: string): void => {
     grid.set(r, c, f(formula));
-    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark} is continuous over ${interiors + 2} supports: its reactions, shear and moment need the add-in's exact solution, not statics` });
+    const why = interiors > 0 ? `is continuous over ${interiors + 2} supports` : "carries a wall's load over part of its length";
+    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark} ${why}: its reactions, shear and moment are computed by the add-in's exact solution` });
   };
   const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null;
   const live = writeLoadRows(ctx, rows, row, row, uniform, false);
@@ -445,6 +458,7 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
 /** A wall or foundation: what it receives, summed per channel (the reactions that close the path). */
 function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
   const { grid, layout } = ctx;
+  const base = ctx.baseOf.get(m.index);
   writeIdentity(ctx, m, row);
   const rows: LoadRow[] = (ctx.into.get(m.index) ?? []).map((d) => receivedRow(ctx, d, true));
   for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
@@ -453,6 +467,21 @@ function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
   for (const i of live) {
     const b = layout.block[i]! + 1;
     grid.set(row, layout.total[i]!, f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`));
+  }
+  // The length the load is spread over: a wall on a beam, End at - Start at; else the Span cell (a
+  // wall's or footing's length); a footing without one under a single wall, that wall's length.
+  let length: string | null = null;
+  if (base?.until !== undefined && base.at !== null) length = `${inputRef(ctx, base.until.cell)}-${inputRef(ctx, base.at.cell)}`;
+  else if (m.span !== null && m.span.value !== null && m.span.value > 0) length = inputRef(ctx, m.span.cell);
+  else {
+    const walls = (ctx.into.get(m.index) ?? []).filter((d) => ctx.model.members[d.from]!.type === "wall");
+    const only = walls.length === 1 && (ctx.into.get(m.index) ?? []).length === 1 ? ctx.places.get(walls[0]!.from) : undefined;
+    if (only !== undefined && ctx.wallLengths.has(only.member)) length = a1Absolute(only.row, layout.wallLength);
+  }
+  if (length !== null) {
+    ctx.wallLengths.add(m.index);
+    grid.set(row, layout.wallLength, f(length));
+    for (const i of live) grid.set(row, layout.perLength[i]!, f(`${a1(row, layout.total[i]!)}/${a1(row, layout.wallLength)}`));
   }
   return { member: m.index, row, rows: n, live };
 }
@@ -531,7 +560,10 @@ function writeColumnHeaders(ctx: Context, row: number): void {
     [layout.llr, "LLR factor"],
     [layout.reducedLive, `L reduced (${u.force})`],
     [layout.factored, `Factored LRFD (${u.force})`],
+    [layout.wallLength, `Wall length (${u.length})`],
   );
+  grid.set(row - 1, layout.wallLength, "Walls and foundations: length and load per unit length");
+  layout.channels.forEach((c: Channel, i) => names.push([layout.perLength[i]!, `${c.label} per length (${c.lineUnit})`]));
   for (const [c, name] of names) grid.set(row, c, name);
 }
 
@@ -605,6 +637,8 @@ export function planSheet(input: PlanInput): SheetPlan {
     loadsOn,
     interiors: input.interiors ?? new Map(),
     valueOnly: [],
+    baseOf: new Map(deliveries.filter((d) => model.members[d.from]!.type === "wall").map((d) => [d.from, d])),
+    wallLengths: new Set(),
   };
   const balance = writeHeader(ctx, input.title);
   let row = balance.headerRow + 1;
@@ -622,7 +656,7 @@ export function planSheet(input: PlanInput): SheetPlan {
     balance,
     first,
     row - 1,
-    places.filter((p) => isTerminal(model.members[p.member]!.type)),
+    places.filter((p) => endsPath(model.members[p.member]!)),
   );
   return { sheet: input.sheet, cells: ctx.grid.rows, layout, places, balance, headerRow: balance.headerRow, valueOnly: ctx.valueOnly };
 }

@@ -29,6 +29,8 @@ export interface Delivery {
   readonly supportCell: CellRef | null;
   /** An interior support: its number among the member's interior supports, 1-based, in order along the member. */
   readonly interior?: number;
+  /** A wall standing on a beam, girder or joist: where it ends along it (End at); it starts at `at`. */
+  readonly until?: NumberInput;
 }
 
 /** An interior support of a continuous member, accepted. */
@@ -101,6 +103,53 @@ function checkSupport(m: Member, which: DeliveryEnd, s: SupportInput, byMark: Re
     return null;
   }
   return { from: m.index, end: which, to: target.index, at: s.at, supportCell: s.cell };
+}
+
+/**
+ * What a wall bears on (its Start support): a wall below or a foundation take its total; a beam,
+ * girder or joist takes it as a line load from Start at to End at; a column cannot carry a wall
+ * (a wall's load is spread along its length). A blank Start support: the wall ends the path.
+ */
+function checkWallBase(m: Member, byMark: ReadonlyMap<string, Member>, problems: Problem[]): Delivery | null {
+  const s = m.start;
+  if (s.mark === "") return null;
+  if (s.mark === m.mark) {
+    problems.push(problemAtCell(s.cell, m.markCell, "selfSupport", `${m.mark} names itself as the member it bears on.`, m.mark));
+    return null;
+  }
+  const target = byMark.get(s.mark);
+  if (target === undefined) {
+    problems.push(problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: Start support "${s.mark}" (what the wall bears on) is not a mark in the Members table.`, m.mark));
+    return null;
+  }
+  if (!target.valid) return null;
+  if (target.type === "column") {
+    problems.push(
+      problemAtCell(s.cell, m.markCell, "badValue", `${m.mark}: a wall cannot bear on column ${target.mark}; give the wall below, the beam, girder or joist under it (with Start at and End at), or its foundation.`, m.mark),
+    );
+    return null;
+  }
+  if (!isFlexural(target.type)) return { from: m.index, end: "base", to: target.index, at: null, supportCell: s.cell };
+  const a = s.at;
+  const b = m.end.at;
+  for (const [n, name] of [[a, "Start at"], [b, "End at"]] as const) {
+    if (n === null || n.value === null) {
+      problems.push(problemAtCell(n?.cell ?? s.cell, m.markCell, "missingPosition", `${m.mark}: ${name} is blank; a wall on ${target.mark} (a ${target.type}) needs Start at and End at, where it stands along ${target.mark}.`, m.mark));
+      return null;
+    }
+  }
+  const length = memberLength(target);
+  for (const [n, name] of [[a!, "Start at"], [b!, "End at"]] as const) {
+    if (length !== null && (n.value! < 0 || n.value! > length)) {
+      problems.push(problemAtCell(n.cell, m.markCell, "supportOutside", `${m.mark}: ${name} ${formatNumber(n.value!)} is outside ${target.mark}, which runs from 0 to ${formatNumber(length)}.`, m.mark));
+      return null;
+    }
+  }
+  if (!(b!.value! > a!.value!)) {
+    problems.push(problemAtCell(b!.cell, m.markCell, "badValue", `${m.mark}: End at ${formatNumber(b!.value!)} must be greater than Start at ${formatNumber(a!.value!)} (the wall stands from Start at to End at along ${target.mark}).`, m.mark));
+    return null;
+  }
+  return { from: m.index, end: "base", to: target.index, at: a!, until: b!, supportCell: s.cell };
 }
 
 /**
@@ -267,6 +316,10 @@ export function checkPath(model: TakedownModel): CheckedPath {
     });
   }
   for (const m of model.members) {
+    if (m.valid && m.type === "wall") {
+      const d = checkWallBase(m, usable, problems);
+      if (d) deliveries.push(d);
+    }
     if (!m.valid || isTerminal(m.type) || excluded.has(m.index)) continue;
     const ends: [DeliveryEnd, SupportInput][] = isFlexural(m.type) ? [["start", m.start], ["end", m.end]] : [["base", m.start]];
     const held: Delivery[] = [];
