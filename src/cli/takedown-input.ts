@@ -51,11 +51,11 @@ export interface TakedownFileResult {
  * @returns the mapping, or an error message naming the bad entry
  */
 export function parseMappings(entries: readonly string[]): { mapping: ColumnMapping } | { error: string } {
-  const out: Record<"zones" | "members" | "loads", Record<string, string>> = { zones: {}, members: {}, loads: {} };
+  const out: Record<"zones" | "members" | "loads" | "bearings", Record<string, string>> = { zones: {}, members: {}, loads: {}, bearings: {} };
   for (const e of entries) {
-    const m = /^\s*(zones|members|loads)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
-    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header, Group/Header or column letter>, table zones, members or loads (e.g. members.Trib="Trib width", members.End at=J).` };
-    out[m[1]!.toLowerCase() as "zones" | "members" | "loads"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
+    const m = /^\s*(zones|members|loads|bearings)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
+    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header, Group/Header or column letter>, table zones, members, loads or bearings (e.g. members.Trib="Trib width", members.End at=J).` };
+    out[m[1]!.toLowerCase() as "zones" | "members" | "loads" | "bearings"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
   }
   return { mapping: out };
 }
@@ -68,16 +68,16 @@ export function parseMappings(entries: readonly string[]): { mapping: ColumnMapp
  */
 export function parseHeaderRows(entries: readonly string[]): { headerRows: HeaderRows } | { error: string } {
   let all: number | undefined;
-  const own: { zones?: number; members?: number; loads?: number } = {};
+  const own: { zones?: number; members?: number; loads?: number; bearings?: number } = {};
   for (const e of entries) {
-    const m = /^\s*(?:(zones|members|loads)\s*=\s*)?(\d+)\s*$/i.exec(e);
+    const m = /^\s*(?:(zones|members|loads|bearings)\s*=\s*)?(\d+)\s*$/i.exec(e);
     const n = m ? Number(m[2]) : NaN;
     if (!m || !Number.isSafeInteger(n) || n < 1) return { error: `--header-row "${e}": write the header row's sheet row number, 1 or more, for every table (--header-row 5) or one (--header-row members=5).` };
     if (m[1] === undefined) all = n;
-    else own[m[1].toLowerCase() as "zones" | "members" | "loads"] = n;
+    else own[m[1].toLowerCase() as "zones" | "members" | "loads" | "bearings"] = n;
   }
   if (all === undefined) return { headerRows: own };
-  return { headerRows: { zones: own.zones ?? all, members: own.members ?? all, loads: own.loads ?? all } };
+  return { headerRows: { zones: own.zones ?? all, members: own.members ?? all, loads: own.loads ?? all, bearings: own.bearings ?? all } };
 }
 
 /**
@@ -109,7 +109,7 @@ export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads, --bearings <n
                  a column whose header differs, e.g. --map members.Trib="Trib width",
                  --map "members.End at=End/Location" (header under the group row's
                  "End"), --map "members.End at=J" (sheet column J); repeatable; table
-                 zones, members or loads
+                 zones, members, loads or bearings
   --header-row [<table>=]<row>
                  the header row's sheet row (1-based), for every table or one
                  (--header-row members=5); default: found among the first 20 rows

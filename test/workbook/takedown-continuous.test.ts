@@ -268,3 +268,22 @@ describe("the Bearings table is found again from the generated sheet's title (ex
     expect(String(title)).toMatch(/, Bearings: Bearings\.$/);
   });
 });
+
+describe("an error value among a continuous member's interior reactions is a listed problem", () => {
+  it("scanResults names the interior reaction's cell on the generated sheet", async () => {
+    const { planTakedown, scanResults } = await import("../../src/engine/takedown");
+    const sheets = twoSpan();
+    const table = (name: string) => ({ sheet: name, top: 0, left: 0, values: sheets[name]! as (string | number | null)[][] });
+    const planned = planTakedown({ zones: table("Zones"), members: table("Members"), bearings: table("Bearings"), units: "US", sheet: "Takedown", title: "t" });
+    const plan = planned.plan!;
+    const j1 = plan.places.find((p) => planned.model!.members[p.member]!.mark === "J1")!;
+    expect(j1.interiors).toBe(1);
+    const d = plan.layout.channels.findIndex((c) => c.key === "D");
+    const badRow = j1.row + 1;
+    const badCol = plan.layout.r1[d]!;
+    const problems = scanResults(plan, planned.model!, (r, c) => (r === badRow && c === badCol ? "#VALUE!" : 1));
+    expect(problems.map((p) => [p.code, p.mark])).toEqual([["errorResult", "J1"]]);
+    const letters = (n: number): string => (n < 26 ? String.fromCharCode(65 + n) : letters(Math.floor(n / 26) - 1) + String.fromCharCode(65 + (n % 26)));
+    expect(problems[0]!.cell).toBe(`${letters(badCol)}${badRow + 1}`);
+  });
+});
