@@ -22,6 +22,8 @@ export interface TakedownRun {
   readonly zones?: string;
   readonly members?: string;
   readonly loads?: string;
+  /** Bearings table (interior supports of continuous members). */
+  readonly bearings?: string;
   readonly mapping?: ColumnMapping;
   /** Header rows given with `--header-row` (1-based sheet rows). */
   readonly headerRows?: HeaderRows;
@@ -49,11 +51,11 @@ export interface TakedownFileResult {
  * @returns the mapping, or an error message naming the bad entry
  */
 export function parseMappings(entries: readonly string[]): { mapping: ColumnMapping } | { error: string } {
-  const out: Record<"zones" | "members" | "loads", Record<string, string>> = { zones: {}, members: {}, loads: {} };
+  const out: Record<"zones" | "members" | "loads" | "bearings", Record<string, string>> = { zones: {}, members: {}, loads: {}, bearings: {} };
   for (const e of entries) {
-    const m = /^\s*(zones|members|loads)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
-    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header, Group/Header or column letter>, table zones, members or loads (e.g. members.Trib="Trib width", members.End at=J).` };
-    out[m[1]!.toLowerCase() as "zones" | "members" | "loads"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
+    const m = /^\s*(zones|members|loads|bearings)\.([^=]+?)\s*=\s*(.*?)\s*$/i.exec(e);
+    if (!m) return { error: `--map "${e}": write it as <table>.<Column>=<your header, Group/Header or column letter>, table zones, members, loads or bearings (e.g. members.Trib="Trib width", members.End at=J).` };
+    out[m[1]!.toLowerCase() as "zones" | "members" | "loads" | "bearings"][m[2]!] = m[3]!.replace(/^"(.*)"$/, "$1");
   }
   return { mapping: out };
 }
@@ -66,16 +68,16 @@ export function parseMappings(entries: readonly string[]): { mapping: ColumnMapp
  */
 export function parseHeaderRows(entries: readonly string[]): { headerRows: HeaderRows } | { error: string } {
   let all: number | undefined;
-  const own: { zones?: number; members?: number; loads?: number } = {};
+  const own: { zones?: number; members?: number; loads?: number; bearings?: number } = {};
   for (const e of entries) {
-    const m = /^\s*(?:(zones|members|loads)\s*=\s*)?(\d+)\s*$/i.exec(e);
+    const m = /^\s*(?:(zones|members|loads|bearings)\s*=\s*)?(\d+)\s*$/i.exec(e);
     const n = m ? Number(m[2]) : NaN;
     if (!m || !Number.isSafeInteger(n) || n < 1) return { error: `--header-row "${e}": write the header row's sheet row number, 1 or more, for every table (--header-row 5) or one (--header-row members=5).` };
     if (m[1] === undefined) all = n;
-    else own[m[1].toLowerCase() as "zones" | "members" | "loads"] = n;
+    else own[m[1].toLowerCase() as "zones" | "members" | "loads" | "bearings"] = n;
   }
   if (all === undefined) return { headerRows: own };
-  return { headerRows: { zones: own.zones ?? all, members: own.members ?? all, loads: own.loads ?? all } };
+  return { headerRows: { zones: own.zones ?? all, members: own.members ?? all, loads: own.loads ?? all, bearings: own.bearings ?? all } };
 }
 
 /**
@@ -90,6 +92,7 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
     zones: { type: "string" },
     members: { type: "string" },
     loads: { type: "string" },
+    bearings: { type: "string" },
     map: { type: "string", multiple: true },
     "header-row": { type: "string", multiple: true },
     sheet: { type: "string" },
@@ -98,14 +101,15 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
 }
 
 /** The usage lines of {@link tableOptions}, shared by the verbs' help texts. */
-export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads <name>
+export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads, --bearings <name>
                  Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
                  default: the table or sheet named Zones, Members and (if present) Loads
+                 and Bearings
   --map <table>.<Column>=<your header | Group/Header | column letter>
                  a column whose header differs, e.g. --map members.Trib="Trib width",
                  --map "members.End at=End/Location" (header under the group row's
                  "End"), --map "members.End at=J" (sheet column J); repeatable; table
-                 zones, members or loads
+                 zones, members, loads or bearings
   --header-row [<table>=]<row>
                  the header row's sheet row (1-based), for every table or one
                  (--header-row members=5); default: found among the first 20 rows
@@ -160,6 +164,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
   const zones = stringOf(values.zones);
   const members = stringOf(values.members);
   const loads = stringOf(values.loads);
+  const bearings = stringOf(values.bearings);
   return {
     run: {
       ...(unitsText !== undefined ? { units: unitsText } : {}),
@@ -168,6 +173,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
       ...(zones !== undefined ? { zones } : {}),
       ...(members !== undefined ? { members } : {}),
       ...(loads !== undefined ? { loads } : {}),
+      ...(bearings !== undefined ? { bearings } : {}),
       ...(sheet !== undefined ? { sheet } : {}),
       replace: values.replace === true,
     },
@@ -177,7 +183,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
 /** Whether the run names a table or a column mapping (rather than leaving everything to the defaults). */
 export function namesTables(run: TakedownRun): boolean {
   const mapped = run.mapping !== undefined && Object.values(run.mapping).some((m) => m !== undefined && Object.keys(m).length > 0);
-  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || mapped || run.headerRows !== undefined;
+  return run.zones !== undefined || run.members !== undefined || run.loads !== undefined || run.bearings !== undefined || mapped || run.headerRows !== undefined;
 }
 
 /**
@@ -247,11 +253,13 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
   const tooLarge = takedownMemoryProblem(await tableRowCount(port, members));
   if (tooLarge !== undefined) throw new Error(`${input}: ${tooLarge}`);
   const loads = tableName(workbook, run.loads, "Loads");
+  const bearings = tableName(workbook, run.bearings, "Bearings");
   const headerUnits = unitsShownByHeaders(workbook, [zones, members, ...(loads !== undefined ? [loads] : [])]);
   const options: TakedownOptions = {
     zones,
     members,
     ...(loads !== undefined ? { loads } : {}),
+    ...(bearings !== undefined ? { bearings } : {}),
     units: run.units ?? headerUnits ?? "US",
     ...(run.mapping ? { mapping: run.mapping } : {}),
     ...(run.headerRows ? { headerRows: run.headerRows } : {}),

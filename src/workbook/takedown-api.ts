@@ -35,6 +35,8 @@ export interface TakedownOptions {
   readonly zones: string;
   readonly members: string;
   readonly loads?: string;
+  /** Interior supports of continuous members (`Mark | Support | At | Support at`), optional. */
+  readonly bearings?: string;
   readonly units: UnitSystem;
   readonly mapping?: ColumnMapping;
   /** Header row of a table (1-based sheet row); a table left out has its header row found. */

@@ -21,7 +21,7 @@ const READ_BLOCK_ROWS = 5000;
 
 /** First line of the generated sheet: the marker the add-in recognises, and what the sheet is. */
 export function sheetTitle(options: TakedownOptions): string {
-  const tables = [`Zones: ${options.zones}`, `Members: ${options.members}`, ...(options.loads ? [`Loads: ${options.loads}`] : [])].join(", ");
+  const tables = [`Zones: ${options.zones}`, `Members: ${options.members}`, ...(options.loads ? [`Loads: ${options.loads}`] : []), ...(options.bearings ? [`Bearings: ${options.bearings}`] : [])].join(", ");
   const handOff = options.native ? " Hand-off version: classic spreadsheet functions only, no add-in needed." : "";
   return `${GENERATED_MARKER}: load takedown (${options.units}) from ${tables}.${handOff}`;
 }
@@ -49,7 +49,7 @@ function missingTable(ref: string, role: string, error: unknown): Problem {
 }
 
 /** Read the input tables; a table that cannot be read is a problem. */
-async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise<{ zones?: TableData; members?: TableData; loads?: TableData; problems: Problem[] }> {
+async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise<{ zones?: TableData; members?: TableData; loads?: TableData; bearings?: TableData; problems: Problem[] }> {
   const problems: Problem[] = [];
   const read = async (ref: string, role: string): Promise<RangeData | undefined> => {
     try {
@@ -62,7 +62,8 @@ async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise
   const zones = await read(options.zones, "Zones");
   const members = await read(options.members, "Members");
   const loads = options.loads ? await read(options.loads, "Loads") : undefined;
-  return { ...(zones ? { zones } : {}), ...(members ? { members } : {}), ...(loads ? { loads } : {}), problems };
+  const bearings = options.bearings ? await read(options.bearings, "Bearings") : undefined;
+  return { ...(zones ? { zones } : {}), ...(members ? { members } : {}), ...(loads ? { loads } : {}), ...(bearings ? { bearings } : {}), problems };
 }
 
 /**
@@ -70,11 +71,12 @@ async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise
  * over a sheet holding one of the tables being read: refused before anything is written, even
  * when replacing is allowed.
  */
-function tableSheetClash(inputs: { zones?: TableData; members?: TableData; loads?: TableData }, generated: readonly string[], options: TakedownOptions): Problem | null {
+function tableSheetClash(inputs: { zones?: TableData; members?: TableData; loads?: TableData; bearings?: TableData }, generated: readonly string[], options: TakedownOptions): Problem | null {
   const tables: [TableData | undefined, string, string][] = [
     [inputs.zones, "Zones", options.zones],
     [inputs.members, "Members", options.members],
     [inputs.loads, "Loads", options.loads ?? ""],
+    [inputs.bearings, "Bearings", options.bearings ?? ""],
   ];
   for (const name of generated) {
     for (const [data, role, ref] of tables) {
@@ -195,6 +197,7 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
     zones: inputs.zones,
     members: inputs.members,
     ...(inputs.loads ? { loads: inputs.loads } : {}),
+    ...(inputs.bearings ? { bearings: inputs.bearings } : {}),
     units: options.units,
     ...(options.mapping ? { mapping: options.mapping } : {}),
     ...(options.headerRows ? { headerRows: options.headerRows } : {}),
@@ -219,6 +222,12 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   await report(progress, 0.8, "Calculating");
   await port.flush();
   const read = await readBack(port, planned.plan, progress);
+  // Cells the writer could not spell (continuous members in the hand-off version) become their values.
+  for (const v of planned.plan.valueOnly) {
+    const value = read(v.row, v.col);
+    await port.writeBlock(sheet, v.row, v.col, [[value === undefined ? null : value]]);
+  }
+  if (planned.plan.valueOnly.length > 0) await port.flush();
   // Any error value or non-finite number among the results is a listed problem, never silent.
   problems.push(...scanResults(planned.plan, planned.model, read));
   const read0 = readResults(planned.plan, planned.model, read, problems);
@@ -226,7 +235,8 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   const json: TakedownJson = { ...read0, problems };
   const summary = summarize(json, planned.plan, planned.model, planned.levels);
   await report(progress, 1, "Done");
-  // Every flexural member of a takedown rests on two supports, so the hand-off writer spells all of them.
+  // The hand-off writer spells every member on two supports; continuous members are written as values, listed.
   const built: BuiltTakedown = { model: planned.model, plan: planned.plan, rowsByMember: rowsByMemberOf(planned.plan, planned.model) };
-  return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly: [] } : {}) };
+  const valueOnly = [...new Map(planned.plan.valueOnly.map((v) => [v.mark, { mark: v.mark, reason: v.reason }])).values()];
+  return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly } : {}) };
 };

@@ -37,7 +37,7 @@ describe("docs/interface.md", () => {
   });
 
   it("names every JSON field of the takedown results and every exit status", () => {
-    for (const field of ["units", "members", "type", "level", "reactions", "shearMax", "momentMax", "tributaryArea", "llrFactor", "columns", "cumulative", "floors", "kllAt", "reducedLive", "combos", "foundations", "balance", "applied", "supports", "problems"]) {
+    for (const field of ["units", "members", "type", "level", "reactions", "shearMax", "momentMax", "tributaryArea", "llrFactor", "columns", "cumulative", "floors", "kllAt", "reducedLive", "combos", "foundations", "perLength", "length", "loads", "balance", "applied", "supports", "problems"]) {
       expect(doc, field).toMatch(new RegExp("`[^`]*\\b" + field + "\\b[^`]*`"));
     }
     expect(doc).toMatch(/`0` done without problems; `1` problems found/);

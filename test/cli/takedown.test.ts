@@ -69,7 +69,7 @@ describe("loadpath takedown", () => {
     expect(r.status).toBe(0);
     expect(digest(SAMPLE_US)).toBe(before);
     const result = JSON.parse(readFileSync(json, "utf8")) as TakedownJson;
-    expect(Object.keys(result)).toEqual(["units", "members", "columns", "foundations", "balance", "problems"]);
+    expect(Object.keys(result)).toEqual(["units", "members", "columns", "foundations", "perLength", "balance", "problems"]);
     expect(result.units).toBe("US");
     // Hand check of one floor beam: (70 psf x 8.333 ft + 35 plf) / 1000 kip/ft over 30 ft, half to each end.
     const w = (70 * (25 / 3) + 35) / 1000;

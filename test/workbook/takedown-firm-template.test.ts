@@ -151,11 +151,11 @@ describe("a firm's template with a title block, group row, units row and word pa
   });
 
   it("--header-row: a bare row is every table's, a table's own entry wins; --map keeps the reference as typed", async () => {
-    expect(parseHeaderRows(["5", "zones=2"])).toEqual({ headerRows: { zones: 2, members: 5, loads: 5 } });
+    expect(parseHeaderRows(["5", "zones=2"])).toEqual({ headerRows: { zones: 2, members: 5, loads: 5, bearings: 5 } });
     expect(parseHeaderRows(["Members=7"])).toEqual({ headerRows: { members: 7 } });
     for (const bad of ["0", "-3", "five", "beams=4", "2.5"]) expect(parseHeaderRows([bad])).toHaveProperty("error");
     expect(parseMappings(["members.End at=End/Location", 'members.Start support="Supported by (start)"', "members.End at=J"])).toEqual({
-      mapping: { zones: {}, members: { "End at": "J", "Start support": "Supported by (start)" }, loads: {} },
+      mapping: { zones: {}, members: { "End at": "J", "Start support": "Supported by (start)" }, loads: {}, bearings: {} },
     });
     const both = await cli("takedown", input, "--header-row", "5", "--header-row", "zones=2", ...MAP_ARGS);
     expect(both.status).toBe(0);

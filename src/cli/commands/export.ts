@@ -91,7 +91,7 @@ export interface ExportOptions {
 }
 
 const TITLE = new RegExp(
-  `^${GENERATED_MARKER.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}: load takedown \\((US|SI)\\) from Zones: (.+?), Members: (.+?)(?:, Loads: (.+?))?\\.(?: Hand-off version.*)?$`,
+  `^${GENERATED_MARKER.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}: load takedown \\((US|SI)\\) from Zones: (.+?), Members: (.+?)(?:, Loads: (.+?))?(?:, Bearings: (.+?))?\\.(?: Hand-off version.*)?$`,
 );
 
 /**
@@ -103,7 +103,7 @@ const TITLE = new RegExp(
 export function takedownFromTitle(title: string, sheet: string): TakedownSpec | null {
   const m = TITLE.exec(title.trim());
   if (!m) return null;
-  const options: TakedownOptions = { units: m[1] as UnitSystem, zones: m[2]!, members: m[3]!, ...(m[4] ? { loads: m[4] } : {}), sheetName: sheet };
+  const options: TakedownOptions = { units: m[1] as UnitSystem, zones: m[2]!, members: m[3]!, ...(m[4] ? { loads: m[4] } : {}), ...(m[5] ? { bearings: m[5] } : {}), sheetName: sheet };
   return { sheet, options };
 }
 
@@ -141,8 +141,9 @@ export function takedownsOf(wb: XlsxWorkbook, units?: UnitSystem): TakedownSpec[
   const members = tableOrSheet(wb, "Members");
   if (zones === undefined || members === undefined) return [];
   const loads = tableOrSheet(wb, "Loads");
+  const bearings = tableOrSheet(wb, "Bearings");
   const sheet = DEFAULT_TAKEDOWN_SHEET;
-  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units: units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]), sheetName: sheet } }];
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), ...(bearings ? { bearings } : {}), units: units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]), sheetName: sheet } }];
 }
 
 /**
@@ -161,9 +162,10 @@ export function takedownsOfRun(wb: XlsxWorkbook, run: TakedownRun): TakedownSpec
   const members = run.members ?? tableOrSheet(wb, "Members");
   if (zones === undefined || members === undefined) throw new Error(`no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
   const loads = run.loads ?? tableOrSheet(wb, "Loads");
+  const bearings = run.bearings ?? tableOrSheet(wb, "Bearings");
   const sheet = run.sheet ?? DEFAULT_TAKEDOWN_SHEET;
   const units = run.units ?? unitsOfTables(wb, [zones, members, ...(loads ? [loads] : [])]);
-  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), ...(run.headerRows ? { headerRows: run.headerRows } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
+  return [{ sheet, options: { zones, members, ...(loads ? { loads } : {}), ...(bearings ? { bearings } : {}), units, ...(run.mapping ? { mapping: run.mapping } : {}), ...(run.headerRows ? { headerRows: run.headerRows } : {}), sheetName: sheet, ...(run.replace ? { replaceForeign: true } : {}) } }];
 }
 
 /** Why a LOADPATH formula outside a takedown sheet is written as its value in the hand-off file. */
@@ -246,6 +248,8 @@ export async function exportHandoff(input: string, output: string | undefined, o
   const problems: Problem[] = [];
   const hints: string[] = [];
   const takedowns: { sheet: string; helperSheet: string; members: number; json?: TakedownJson }[] = [];
+  // Takedown cells the classic functions cannot spell (continuous members), already values on the sheet.
+  const takedownValues: ValueOnlyCell[] = [];
   for (const spec of specs) {
     const result = await buildTakedown(port, { ...spec.options, sheetName: spec.sheet, native: true });
     problems.push(...result.problems);
@@ -257,6 +261,12 @@ export async function exportHandoff(input: string, output: string | undefined, o
     const j = result.json;
     const marks = new Set([...Object.keys(j?.members ?? {}), ...Object.keys(j?.columns ?? {}), ...Object.keys(j?.foundations ?? {})]);
     takedowns.push({ sheet: spec.sheet, helperSheet: helperSheetName(spec.sheet), members: marks.size, ...(j ? { json: j } : {}) });
+    const plan = result.built?.plan;
+    for (const v of plan?.valueOnly ?? []) {
+      const cell = plan!.cells[v.row]?.[v.col];
+      const formula = cell !== null && typeof cell === "object" ? cell.formula : "";
+      takedownValues.push({ sheet: spec.sheet, address: cellAddress(v.row, v.col), mark: v.mark, formula, reason: v.reason });
+    }
   }
   const generated = new Set(port.generatedSheets());
   const valueOnly = wb.formulas
@@ -280,11 +290,11 @@ export async function exportHandoff(input: string, output: string | undefined, o
       date: options.date ?? new Date().toISOString().slice(0, 10),
       source: input.replace(/^.*[\\/]/, ""),
       takedowns: takedowns.map((t) => ({ sheet: t.sheet, helperSheet: t.helperSheet, units: units.get(t.sheet) ?? "US", members: t.members })),
-      valueOnly: valueOnly.map(({ value: _value, ...rest }) => rest),
+      valueOnly: [...takedownValues, ...valueOnly.map(({ value: _value, ...rest }) => rest)],
     }).concat(leftOutRows(problems)),
   );
   if (output !== undefined) await writeXlsx(wb, resolve(output));
-  return { ok: true, problems, hints, written: output !== undefined, takedowns, valueOnly: valueOnly.map(({ value: _value, ...rest }) => rest), noticeSheet: name };
+  return { ok: true, problems, hints, written: output !== undefined, takedowns, valueOnly: [...takedownValues, ...valueOnly.map(({ value: _value, ...rest }) => rest)], noticeSheet: name };
 }
 
 /**

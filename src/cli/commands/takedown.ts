@@ -103,7 +103,7 @@ export function balanceLines(json: TakedownJson): string[] {
 
 /** The JSON written even when nothing could be built (the problems are in it). */
 function jsonOf(result: TakedownBuildResult, units: UnitSystem): TakedownJson {
-  return result.json ?? { units, members: {}, columns: {}, foundations: {}, balance: {}, problems: result.problems };
+  return result.json ?? { units, members: {}, columns: {}, foundations: {}, perLength: {}, balance: {}, problems: result.problems };
 }
 
 /**

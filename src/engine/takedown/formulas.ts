@@ -42,8 +42,14 @@ export interface FormulaWriter {
   readonly name: string;
   /** Whether the plan writes each case's `kind | magnitude | from | to` columns beside the magnitudes. */
   readonly writesLoadRanges: boolean;
-  /** Vertical reaction (up +) at the member's first (1) or second (2) support. */
-  reaction(member: MemberRefs, loads: ChannelRefs, index: 1 | 2): string;
+  /**
+   * Whether it spells members on more than two supports (continuous members); when not, the plan
+   * writes those members' results with the add-in writer and lists the cells in
+   * `SheetPlan.valueOnly` so that the build replaces them with their values.
+   */
+  readonly continuous?: boolean;
+  /** Vertical reaction (up +) at the member's support number `index` (1 = first, in order along the member). */
+  reaction(member: MemberRefs, loads: ChannelRefs, index: number): string;
   /** Largest absolute shear. */
   shearMax(member: MemberRefs, loads: ChannelRefs): string;
   /** Largest sagging moment. */
@@ -64,6 +70,7 @@ function withSupports(member: MemberRefs): string {
 export const ADD_IN_WRITER: FormulaWriter = {
   name: "LOADPATH worksheet functions",
   writesLoadRanges: true,
+  continuous: true,
   reaction: (m, c, index) => `LOADPATH.REACTION(${m.span},${c.loads},${index}${withSupports(m)})`,
   shearMax: (m, c) => `LOADPATH.SHEAR_MAX(${m.span},${c.loads}${withSupports(m)})`,
   momentMax: (m, c) => `LOADPATH.MOMENT_MAX(${m.span},${c.loads}${withSupports(m)})`,

@@ -7,7 +7,7 @@ import { a1 } from "./a1";
 import { isFlexural, readModel, type TakedownModel } from "./model";
 import { orderTakedown } from "./order";
 import { planSheet, type SheetPlan } from "./plan";
-import { LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC } from "./tables";
+import { BEARINGS_SPEC, LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC } from "./tables";
 import { checkPath, type CheckedPath } from "./validate";
 import type { FormulaWriter } from "./formulas";
 import type { Problem, TableData, UnitSystem } from "./types";
@@ -18,9 +18,9 @@ export { CAUTION, planSheet, type PlanCell, type SheetPlan, type MemberPlace } f
 export { readResults, byMark, summarize, gravityCombos, type TakedownResults, type Summary, type CellReader, type MemberResult, type ColumnResult } from "./results";
 export { scanResults, scanJson } from "./scan";
 export { isErrorValue } from "./cells";
-export { matchTable, splitHeader, foldHeader, HEADER_SEARCH_ROWS, ZONES_SPEC, MEMBERS_SPEC, LOADS_SPEC, type MatchedTable } from "./tables";
-export { readModel, type TakedownModel, type Member, type MemberType, type Zone } from "./model";
-export { checkPath, type Delivery } from "./validate";
+export { matchTable, splitHeader, foldHeader, HEADER_SEARCH_ROWS, ZONES_SPEC, MEMBERS_SPEC, LOADS_SPEC, BEARINGS_SPEC, type MatchedTable } from "./tables";
+export { readModel, type TakedownModel, type Member, type MemberType, type Zone, type Bearing } from "./model";
+export { checkPath, deliveryLabel, type Delivery, type InteriorSupport } from "./validate";
 export { sortGraph, type SortResult, type Edge } from "./graph";
 export { orderTakedown, levelsTopDown, levelHeightHint } from "./order";
 export { layoutOf, channelsOf, COL, type Layout, type Channel } from "./layout";
@@ -34,6 +34,7 @@ export interface TableMapping {
   readonly zones?: Readonly<Record<string, string>>;
   readonly members?: Readonly<Record<string, string>>;
   readonly loads?: Readonly<Record<string, string>>;
+  readonly bearings?: Readonly<Record<string, string>>;
 }
 
 /** The header row of each table, as a 1-based sheet row, where the user gives it (else it is found). */
@@ -41,6 +42,7 @@ export interface HeaderRows {
   readonly zones?: number;
   readonly members?: number;
   readonly loads?: number;
+  readonly bearings?: number;
 }
 
 /** Input of {@link planTakedown}. */
@@ -48,6 +50,8 @@ export interface TakedownInput {
   readonly zones: TableData;
   readonly members: TableData;
   readonly loads?: TableData;
+  /** Interior supports of continuous members (docs/interface.md section 2). */
+  readonly bearings?: TableData;
   readonly units: UnitSystem;
   readonly mapping?: TableMapping;
   /** Header rows given by the user (1-based sheet rows); a table left out has its header row found. */
@@ -122,7 +126,8 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
   const zones = matchTable(ZONES_SPEC, input.zones, input.units, input.mapping?.zones, input.headerRows?.zones);
   const members = matchTable(MEMBERS_SPEC, input.members, input.units, input.mapping?.members, input.headerRows?.members);
   const loads = input.loads ? matchTable(LOADS_SPEC, input.loads, input.units, input.mapping?.loads, input.headerRows?.loads) : undefined;
-  const headerProblems = [...zones.problems, ...members.problems, ...(loads?.problems ?? [])];
+  const bearings = input.bearings ? matchTable(BEARINGS_SPEC, input.bearings, input.units, input.mapping?.bearings, input.headerRows?.bearings) : undefined;
+  const headerProblems = [...zones.problems, ...members.problems, ...(loads?.problems ?? []), ...(bearings?.problems ?? [])];
   if (members.table.columns.zone !== undefined && members.table.columns.trib === undefined && !members.problems.some((p) => p.code === "missingColumn")) {
     const d = input.members;
     headerProblems.push({ code: "missingColumn", message: "The Members table has a Zone column but no Trib column: zone loads need a trib width.", sheet: d.sheet, cell: a1(d.top + members.table.headerRow, d.left) });
@@ -132,8 +137,11 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
     headerProblems.push({ code: "emptyTable", message: `The Members table ("${d.sheet}") has no members: no row below its header holds a value.`, sheet: d.sheet, cell: a1(d.top + members.table.headerRow, d.left) });
   }
   if (headerProblems.some((p) => FATAL_CODES.has(p.code))) return { problems: headerProblems, plan: null, model: null, levels: [] };
-  const read = readModel({ zones: zones.table, members: members.table, ...(loads ? { loads: loads.table } : {}) }, input.units);
-  const checked = withoutOverloaded(read.model, checkPath(read.model));
+  const read = readModel({ zones: zones.table, members: members.table, ...(loads ? { loads: loads.table } : {}), ...(bearings ? { bearings: bearings.table } : {}) }, input.units);
+  const checkedPath = checkPath(read.model);
+  // Members left out for a Bearings row that cannot be used are out of the takedown like members with a problem on their own row.
+  const withBearings = checkedPath.excluded.size === 0 ? read.model : { ...read.model, members: read.model.members.map((m) => (checkedPath.excluded.has(m.index) ? { ...m, valid: false } : m)) };
+  const checked = withoutOverloaded(withBearings, checkedPath);
   const path = checked.path;
   const model = checked.model;
   const ordered = orderTakedown(model, path.deliveries);
@@ -142,6 +150,7 @@ export function planTakedown(input: TakedownInput): TakedownPlan {
     order: ordered.order,
     deliveries: path.deliveries,
     placedLoads: path.placedLoads,
+    interiors: path.interiors,
     sheet: input.sheet,
     title: input.title,
     ...(input.writer ? { writer: input.writer } : {}),

@@ -64,6 +64,10 @@ export interface Layout {
   readonly llr: number;
   readonly reducedLive: number;
   readonly factored: number;
+  /** Walls and foundations: the length the load is spread over (ft or m), where known. */
+  readonly wallLength: number;
+  /** Walls and foundations: total per unit length, per channel (kip/ft or kN/m). */
+  readonly perLength: readonly number[];
   /** Number of columns. */
   readonly width: number;
 }
@@ -116,6 +120,7 @@ export function layoutOf(channels: readonly Channel[], units: UnitSystem): Layou
     arriving.push(next++);
     total.push(next++);
   }
-  const [areaT, kll, floors, kllAt, llr, reducedLive, factored] = take(7) as [number, number, number, number, number, number, number];
-  return { units, channels, cases, block, r1, r2, vMax, mMax, arriving, total, areaT, kll, floors, kllAt, llr, reducedLive, factored, width: next };
+  const [areaT, kll, floors, kllAt, llr, reducedLive, factored, wallLength] = take(8) as [number, number, number, number, number, number, number, number];
+  const perLength = take(channels.length);
+  return { units, channels, cases, block, r1, r2, vMax, mMax, arriving, total, areaT, kll, floors, kllAt, llr, reducedLive, factored, wallLength, perLength, width: next };
 }

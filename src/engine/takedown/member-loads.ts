@@ -12,7 +12,7 @@ import { isFlexural, type Member, type MemberType, type TakedownModel } from "./
 import type { SheetPlan } from "./plan";
 import type { CellReader } from "./results";
 import type { CellValue, LoadCase } from "./types";
-import type { Delivery, DeliveryEnd, PlacedLoad } from "./validate";
+import { deliveryLabel, type Delivery, type DeliveryEnd, type PlacedLoad } from "./validate";
 
 /** Where a load on a member comes from. */
 export type LoadOrigin =
@@ -47,7 +47,7 @@ export interface AppliedLoad {
 
 /** What holds a member up at one end. */
 export interface MemberSupport {
-  /** "start" or "end" of a beam; "base" of a column. */
+  /** "start" or "end" of a beam, "interior" for a continuous member's Bearings row; "base" of a column. */
   readonly end: DeliveryEnd;
   /** Mark of the supporting member as entered. */
   readonly mark: string;
@@ -70,7 +70,7 @@ export interface MemberLoads {
   /** Load rows in the sheet's order, then (columns) the loads of the columns above. */
   readonly loads: readonly AppliedLoad[];
   /**
-   * Computed reactions per channel: [first support, second support] for beams; [total] for
+   * Computed reactions per channel: one per support in order along the member for beams; [total] for
    * columns (cumulative load at the base), walls and foundations.
    */
   readonly reactions: Readonly<Partial<Record<ChannelKey, readonly number[]>>>;
@@ -161,16 +161,22 @@ function magnitudesAt(source: MemberLoadsSource, row: number, live: readonly num
   return out;
 }
 
-function supportsOf(source: MemberLoadsSource, ix: Indexed, m: Member, row: number, length: number | null): MemberSupport[] {
+function supportsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: SheetPlan["places"][number], length: number | null): MemberSupport[] {
+  const row = place.row;
   const typeOf = (mark: string): MemberType | null => ix.byMark.get(mark)?.type ?? null;
   if (!isFlexural(m.type)) return m.start.mark === "" ? [] : [{ end: "base", mark: m.start.mark, type: typeOf(m.start.mark), x: null, at: null }];
-  const first = numberOf(source.read(row, COL.supports));
-  const second = numberOf(source.read(row + 1, COL.supports));
-  const xs = first !== null && second !== null ? [first, second] : [0, length];
-  return (["start", "end"] as const).map((end, k) => {
-    const s = end === "start" ? m.start : m.end;
-    return { end, mark: s.mark, type: typeOf(s.mark), x: xs[k] ?? null, at: s.at?.value ?? null };
+  const count = 2 + (place.interiors ?? 0);
+  const read = Array.from({ length: count }, (_, k) => numberOf(source.read(row + k, COL.supports)));
+  const xs = read.every((x) => x !== null) ? read : [0, length];
+  // Interior supports in order along the member: the deliveries out of it tell what holds each.
+  const inner = source.deliveries.filter((d) => d.from === m.index && d.end === "interior").sort((a, b) => (a.interior ?? 0) - (b.interior ?? 0));
+  const out: MemberSupport[] = [{ end: "start", mark: m.start.mark, type: typeOf(m.start.mark), x: xs[0] ?? null, at: m.start.at?.value ?? null }];
+  inner.forEach((d, k) => {
+    const holder = source.model.members[d.to]!;
+    out.push({ end: "interior", mark: holder.mark, type: holder.type, x: xs[k + 1] ?? null, at: d.at?.value ?? null });
   });
+  out.push({ end: "end", mark: m.end.mark, type: typeOf(m.end.mark), x: xs[count - 1] ?? null, at: m.end.at?.value ?? null });
+  return out;
 }
 
 function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: SheetPlan["places"][number], length: number | null): AppliedLoad[] {
@@ -178,13 +184,13 @@ function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: Sheet
   const flexural = isFlexural(m.type);
   const magCols = layout.block.map((b) => b + 1);
   const received = new Map<string, Delivery>();
-  for (const d of ix.into.get(m.index) ?? []) received.set(`${source.model.members[d.from]!.mark} ${d.end}`, d);
+  for (const d of ix.into.get(m.index) ?? []) received.set(deliveryLabel(source.model.members[d.from]!.mark, d), d);
   const out: AppliedLoad[] = [];
   for (let r = place.row; r < place.row + place.rows; r++) {
     const kind = textOf(source.read(r, COL.kind));
-    if (kind !== "line" && kind !== "point" && kind !== "reaction") continue;
+    if (kind !== "line" && kind !== "point" && kind !== "reaction" && kind !== "wall") continue;
     const text = textOf(source.read(r, COL.source));
-    const delivery = kind === "reaction" ? received.get(text) : undefined;
+    const delivery = kind === "reaction" ? received.get(text) : kind === "wall" ? (ix.into.get(m.index) ?? []).find((d) => d.until !== undefined && `${source.model.members[d.from]!.mark} (wall)` === text) : undefined;
     const from = delivery ? source.model.members[delivery.from]! : undefined;
     const origin: LoadOrigin = from && delivery ? { kind: "member", mark: from.mark, type: from.type, end: delivery.end } : originOf(m, text, ix.placed.get(m.index) ?? []);
     const a = numberOf(source.read(r, COL.from));
@@ -195,8 +201,10 @@ function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: Sheet
     if (flexural) {
       start = a ?? 0;
       if (kind === "line") end = b ?? (a === null ? length : a + (loaded ?? 0));
+      if (kind === "wall") end = b;
     }
-    out.push({ kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols) });
+    // A wall standing on the member is a line load over its extent (origin: the wall).
+    out.push({ kind: kind === "wall" ? "line" : kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols) });
   }
   if (m.type === "column") {
     for (const d of ix.into.get(m.index) ?? []) {
@@ -223,7 +231,8 @@ function reactionsOf(source: MemberLoadsSource, m: Member, place: SheetPlan["pla
   for (const i of place.live) {
     const key = layout.channels[i]!.key;
     const at = (col: number): number => numberOf(source.read(place.row, col)) ?? 0;
-    out[key] = isFlexural(m.type) ? [at(layout.r1[i]!), at(layout.r2[i]!)] : [at(layout.total[i]!)];
+    const inner = Array.from({ length: place.interiors ?? 0 }, (_, k) => numberOf(source.read(place.row + 1 + k, layout.r1[i]!)) ?? 0);
+    out[key] = isFlexural(m.type) ? [at(layout.r1[i]!), ...inner, at(layout.r2[i]!)] : [at(layout.total[i]!)];
   }
   return out;
 }
@@ -250,7 +259,7 @@ function recordOf(source: MemberLoadsSource, ix: Indexed, m: Member): MemberLoad
     type: m.type,
     level: m.level,
     length,
-    supports: supportsOf(source, ix, m, place.row, length),
+    supports: supportsOf(source, ix, m, place, length),
     loads: loadsOf(source, ix, m, place, length),
     reactions: reactionsOf(source, m, place),
     channels: place.live.map((i) => source.plan.layout.channels[i]!.key),

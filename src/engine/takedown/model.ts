@@ -5,7 +5,7 @@
  * is left out of the takedown, the others still build.
  */
 import { formatNumber, isErrorValue, numberOf, textOf, yesNoOf } from "./cells";
-import { problemAt, tableCell, type LoadsColumn, type MatchedTable, type MembersColumn, type ZonesColumn } from "./tables";
+import { problemAt, tableCell, type BearingsColumn, type LoadsColumn, type MatchedTable, type MembersColumn, type ZonesColumn } from "./tables";
 import { LOAD_CASES, type CellRef, type CellValue, type LoadCase, type Problem, type UnitSystem } from "./types";
 
 /** Member types of docs/interface.md section 2. */
@@ -36,6 +36,15 @@ export function isFlexural(type: MemberType): boolean {
 /** True for members that end the load path (wall, foundation). */
 export function isTerminal(type: MemberType): boolean {
   return type === "wall" || type === "foundation";
+}
+
+/**
+ * True for members that end the load path: foundations, and walls with no Start support. A wall
+ * whose Start support names what it bears on (a wall below, a beam, girder or joist, a
+ * foundation) hands its load down like a column.
+ */
+export function endsPath(m: Pick<Member, "type" | "start">): boolean {
+  return m.type === "foundation" || (m.type === "wall" && m.start.mark === "");
 }
 
 /** A zone of the load schedule. */
@@ -111,6 +120,20 @@ export interface ExtraLoad {
   readonly valid: boolean;
 }
 
+/** One row of the Bearings table: an interior support of a continuous member. */
+export interface Bearing {
+  /** 1-based sheet row, for descriptions. */
+  readonly sheetRow: number;
+  /** Mark of the continuous member. */
+  readonly mark: string;
+  readonly markCell: CellRef;
+  /** What holds the member there, and where along it (Support at). */
+  readonly support: SupportInput;
+  /** Position of the support along the member, from its start end, overhang included. */
+  readonly at: NumberInput | null;
+  readonly valid: boolean;
+}
+
 /** Everything the takedown is built from. */
 export interface TakedownModel {
   readonly units: UnitSystem;
@@ -120,6 +143,8 @@ export interface TakedownModel {
   readonly zones: ReadonlyMap<string, Zone>;
   readonly members: readonly Member[];
   readonly loads: readonly ExtraLoad[];
+  /** Rows of the Bearings table (empty without one). */
+  readonly bearings: readonly Bearing[];
   /**
    * Input cells that hold a number stored as text (" 24.5 ", "1e3", common after a CSV import),
    * by {@link cellKey}: the checks read them as that number, so the written formulas convert them
@@ -138,6 +163,7 @@ export interface ModelTables {
   readonly zones: MatchedTable<ZonesColumn>;
   readonly members: MatchedTable<MembersColumn>;
   readonly loads?: MatchedTable<LoadsColumn>;
+  readonly bearings?: MatchedTable<BearingsColumn>;
 }
 
 /** Reads the cells of one table row by column key. */
@@ -383,6 +409,29 @@ function readLoad(r: RowReader<LoadsColumn>, zones: ReadonlyMap<string, Zone>): 
   };
 }
 
+/** Read one Bearings row; the member and the support it names are checked later (validate.ts). */
+function readBearing(r: RowReader<BearingsColumn>): Bearing {
+  const before = r.problems.length;
+  const mark = r.text("mark");
+  const sheetRow = r.table.data.top + r.rowIndex + 1;
+  const label = `Bearings row ${sheetRow}${mark ? ` (${mark})` : ""}`;
+  r.errorsIn([{ key: "mark", what: "Mark" }, { key: "support", what: "Support" }], mark);
+  if (mark === "") r.report("mark", "badValue", `${label}: no member mark.`);
+  const supportMark = isErrorValue(r.raw("support")) ? "" : r.text("support");
+  if (supportMark === "" && !isErrorValue(r.raw("support"))) r.report("support", "unknownSupport", `${label}: Support is blank; give the mark of what holds ${mark || "the member"} there.`, mark);
+  const at = r.number("at", `${label}: At`, mark);
+  if (!at.bad && (at.input === null || at.input.value === null)) r.report("at", "missingPosition", `${label}: At is blank; give the position of the support along ${mark || "the member"}.`, mark);
+  const supportAt = r.number("supportAt", `${label}: Support at`, mark).input;
+  return {
+    sheetRow,
+    mark,
+    markCell: r.cell("mark")!,
+    support: { mark: supportMark, cell: r.cell("support"), at: supportAt },
+    at: at.input,
+    valid: r.problems.length === before,
+  };
+}
+
 /** Load cases carried: those with a value in a Zones case column, a wX column or a Loads row. */
 function casesOf(zones: ReadonlyMap<string, Zone>, members: readonly Member[], loads: readonly ExtraLoad[]): LoadCase[] {
   const used = new Set<LoadCase>();
@@ -404,7 +453,8 @@ export function readModel(tables: ModelTables, units: UnitSystem): { model: Take
   const zones = readZones(tables.zones, problems, textNumbers);
   const members = readMembers(tables.members, zones, problems, textNumbers);
   const loads = tables.loads ? rowsOf(tables.loads, problems, textNumbers).map((r) => readLoad(r, zones)) : [];
-  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads, textNumbers }, problems };
+  const bearings = tables.bearings ? rowsOf(tables.bearings, problems, textNumbers).map(readBearing) : [];
+  return { model: { units, cases: casesOf(zones, members, loads), zones, members, loads, bearings, textNumbers }, problems };
 }
 
 /** Length of a member at build time: start overhang + span + end overhang (null when the span is unknown). */

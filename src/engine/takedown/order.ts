@@ -1,11 +1,11 @@
 /**
  * The takedown order: levels from the roof down, and within a level joists, beams, girders, then
- * the columns that hold them; walls and foundations last. The order always puts a member after
+ * the columns and walls that hold them; foundations and walls that end the path last. The order always puts a member after
  * every member it carries (graph.ts); these preferences only settle the rest.
  */
 import { a1 } from "./a1";
 import { sortGraph, type Edge } from "./graph";
-import { isTerminal, type Member, type MemberType, type TakedownModel } from "./model";
+import { endsPath, type Member, type MemberType, type TakedownModel } from "./model";
 import type { Problem } from "./types";
 import type { Delivery } from "./validate";
 
@@ -39,7 +39,7 @@ export function levelsTopDown(members: readonly Member[], deliveries: readonly D
   const levels: string[] = [];
   const position = new Map<string, number>();
   for (const m of members) {
-    if (!m.valid || isTerminal(m.type) || position.has(m.level)) continue;
+    if (!m.valid || endsPath(m) || position.has(m.level)) continue;
     position.set(m.level, levels.length);
     levels.push(m.level);
   }
@@ -92,8 +92,9 @@ export function orderTakedown(model: TakedownModel, deliveries: readonly Deliver
   const before = (a: number, b: number): number => {
     const ma = members[a]!;
     const mb = members[b]!;
-    const ta = isTerminal(ma.type) ? 1 : 0;
-    const tb = isTerminal(mb.type) ? 1 : 0;
+    // Members that end the path last: they carry nothing onward, so they stay together at the end.
+    const ta = endsPath(ma) ? 1 : 0;
+    const tb = endsPath(mb) ? 1 : 0;
     if (ta !== tb) return ta - tb;
     const la = ta ? 0 : (levelRank.get(ma.level) ?? levels.length);
     const lb = tb ? 0 : (levelRank.get(mb.level) ?? levels.length);

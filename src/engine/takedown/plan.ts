@@ -13,10 +13,10 @@
 import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
 import { ADD_IN_WRITER, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
 import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
-import { cellKey, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
+import { cellKey, endsPath, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
 import { RESULT_UNITS } from "./units";
 import type { CellRef, CellValue, LoadCase } from "./types";
-import type { Delivery, PlacedLoad } from "./validate";
+import { deliveryLabel, type Delivery, type InteriorSupport, type PlacedLoad } from "./validate";
 
 /** A cell of the plan: a value, or a formula (text without "="). */
 export type PlanCell = CellValue | { readonly formula: string };
@@ -29,6 +29,8 @@ export interface MemberPlace {
   readonly rows: number;
   /** Indices into the layout's channels that carry load on this member. */
   readonly live: readonly number[];
+  /** Interior supports of a continuous member (their reactions sit in R1 on the rows below its first row); absent = none. */
+  readonly interiors?: number;
 }
 
 /** The generated sheet, cell by cell, and where the results are. */
@@ -43,6 +45,11 @@ export interface SheetPlan {
   readonly balance: { readonly appliedRow: number; readonly supportsRow: number; readonly caseCols: readonly number[] };
   /** 0-based row of the column header line (members start on the next row). */
   readonly headerRow: number;
+  /**
+   * Cells the writer could not spell (a continuous member's results in the hand-off version):
+   * written here with the add-in's functions, to be replaced by their computed values and listed.
+   */
+  readonly valueOnly: readonly { readonly row: number; readonly col: number; readonly mark: string; readonly reason: string }[];
 }
 
 /** What the plan is made from. */
@@ -52,6 +59,8 @@ export interface PlanInput {
   readonly order: readonly number[];
   readonly deliveries: readonly Delivery[];
   readonly placedLoads: readonly PlacedLoad[];
+  /** Interior supports of continuous members (Bearings rows), by member index, in order along each. */
+  readonly interiors?: ReadonlyMap<number, readonly InteriorSupport[]>;
   /** Name of the generated sheet. */
   readonly sheet: string;
   /** First line of the sheet (the generated-sheet marker and a title). */
@@ -91,7 +100,8 @@ function colAbs(row: number, col: number): string {
 
 /** One load row of a member block before it is written. */
 interface LoadRow {
-  readonly kind: "line" | "point" | "reaction";
+  /** "wall": a wall standing on the member, its load per unit length from `from` to `to`. */
+  readonly kind: "line" | "point" | "reaction" | "wall";
   readonly source: string;
   readonly width?: PlanCell;
   /** Start position (null = full length for a line, 0 for axial members). */
@@ -113,6 +123,12 @@ interface Context {
   /** Deliveries into each member, in takedown order of the carried member. */
   readonly into: ReadonlyMap<number, readonly Delivery[]>;
   readonly loadsOn: ReadonlyMap<number, readonly PlacedLoad[]>;
+  readonly interiors: ReadonlyMap<number, readonly InteriorSupport[]>;
+  readonly valueOnly: { row: number; col: number; mark: string; reason: string }[];
+  /** What each wall bears on (its delivery), by wall index. */
+  readonly baseOf: ReadonlyMap<number, Delivery>;
+  /** Walls and foundations whose length cell is written. */
+  readonly wallLengths: Set<number>;
 }
 
 /** Unit conversion of a pound-based input to kips, visible in the formula (US); none in SI. */
@@ -199,19 +215,28 @@ function deliveredCell(ctx: Context, d: Delivery, i: number): string | null {
   const place = ctx.places.get(d.from)!;
   if (!place.live.includes(i)) return null;
   const from = ctx.model.members[d.from]!;
-  const col = isFlexural(from.type) ? (d.end === "end" ? ctx.layout.r2[i]! : ctx.layout.r1[i]!) : ctx.layout.total[i]!;
-  return a1Absolute(place.row, col);
+  if (!isFlexural(from.type)) return a1Absolute(place.row, ctx.layout.total[i]!);
+  // R2 holds the last support; R1 the first, with the interior supports of a continuous member below it, in order.
+  if (d.end === "end") return a1Absolute(place.row, ctx.layout.r2[i]!);
+  return a1Absolute(place.row + (d.end === "interior" ? (d.interior ?? 0) : 0), ctx.layout.r1[i]!);
 }
 
 /** A received reaction as a load row. */
 function receivedRow(ctx: Context, d: Delivery, axial: boolean): LoadRow {
+  const from = ctx.model.members[d.from]!;
+  if (d.until !== undefined && d.at !== null) {
+    // A wall on a beam: its total per unit length, over Start at..End at of the beam.
+    const place = ctx.places.get(d.from)!;
+    const wallMags = new Map<number, string>();
+    for (const i of place.live) wallMags.set(i, a1Absolute(place.row, ctx.layout.perLength[i]!));
+    return { kind: "wall", source: `${from.mark} (wall)`, from: f(inputRef(ctx, d.at.cell)), to: f(inputRef(ctx, d.until.cell)), mags: wallMags };
+  }
   const mags = new Map<number, string>();
   for (let i = 0; i < ctx.layout.channels.length; i++) {
     const cell = deliveredCell(ctx, d, i);
     if (cell !== null) mags.set(i, cell);
   }
-  const from = ctx.model.members[d.from]!;
-  return { kind: "reaction", source: `${from.mark} ${d.end}`, from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)), to: null, mags };
+  return { kind: "reaction", source: deliveryLabel(from.mark, d), from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)), to: null, mags };
 }
 
 /** The member's identity cells (mark, type, level). */
@@ -238,7 +263,7 @@ function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, firs
       const b = layout.block[i]!;
       grid.set(r, b + 1, f(mag));
       if (axial || uniform || !ctx.writer.writesLoadRanges) continue;
-      grid.set(r, b, lr.kind === "line" ? "line" : "point");
+      grid.set(r, b, lr.kind === "line" || lr.kind === "wall" ? "line" : "point");
       if (lr.from !== null) grid.set(r, b + 2, f(colAbs(r, COL.from)));
       if (lr.to !== null) grid.set(r, b + 3, f(colAbs(r, COL.to)));
     }
@@ -305,19 +330,23 @@ function writeGeometry(ctx: Context, m: Member, row: number): MemberRefs {
   // A blank overhang cell is no overhang (a filled one, even 0, is referenced and stays live).
   const so = m.startOverhang && m.startOverhang.value !== null ? inputRef(ctx, m.startOverhang.cell) : null;
   const eo = m.endOverhang && m.endOverhang.value !== null ? inputRef(ctx, m.endOverhang.cell) : null;
-  if (so === null && eo === null) {
+  const interiors = ctx.interiors.get(m.index) ?? [];
+  if (so === null && eo === null && interiors.length === 0) {
     ctx.grid.set(row, COL.length, f(span));
     return { span: colAbs(row, COL.length), supports: null };
   }
   ctx.grid.set(row, COL.length, f([so, span, eo].filter((x) => x !== null).join("+")));
+  // Supports in order along the member: start, the interior supports (Bearings At cells), end.
   ctx.grid.set(row, COL.supports, so === null ? 0 : f(so));
-  ctx.grid.set(row + 1, COL.supports, f(so === null ? span : `${so}+${span}`));
-  return { span: colAbs(row, COL.length), supports: `${colAbs(row, COL.supports)}:${colAbs(row + 1, COL.supports)}` };
+  interiors.forEach((s, k) => ctx.grid.set(row + 1 + k, COL.supports, f(inputRef(ctx, s.at.cell))));
+  const last = row + 1 + interiors.length;
+  ctx.grid.set(last, COL.supports, f(so === null ? span : `${so}+${span}`));
+  return { span: colAbs(row, COL.length), supports: `${colAbs(row, COL.supports)}:${colAbs(last, COL.supports)}` };
 }
 
 /** A beam, girder or joist: loads, reactions, shear and moment maxima, A_T and live load reduction. */
 function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
-  const { grid, layout, writer } = ctx;
+  const { grid, layout } = ctx;
   writeIdentity(ctx, m, row);
   const rows: LoadRow[] = [];
   const zr = zoneRow(ctx, m, row);
@@ -325,29 +354,42 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, false));
   for (const d of ctx.into.get(m.index) ?? []) rows.push(receivedRow(ctx, d, false));
   const overhangs = (m.startOverhang?.value ?? null) !== null || (m.endOverhang?.value ?? null) !== null;
-  const n = Math.max(1, rows.length, overhangs ? 2 : 1);
+  const interiors = (ctx.interiors.get(m.index) ?? []).length;
+  const supportCount = 2 + interiors;
+  const n = Math.max(1, rows.length, overhangs || interiors > 0 ? supportCount : 1);
   const member = writeGeometry(ctx, m, row);
+  // A writer that cannot spell a continuous member (classic functions: statics of two supports only)
+  // leaves its results to the add-in's functions, replaced by their values after calculation.
+  const handOff = (interiors > 0 || rows.some((r) => r.kind === "wall")) && ctx.writer.continuous !== true;
+  const writer = handOff ? ADD_IN_WRITER : ctx.writer;
+  const put = (r: number, c: number, formula: string): void => {
+    grid.set(r, c, f(formula));
+    const why = interiors > 0 ? `is continuous over ${interiors + 2} supports` : "carries a wall's load over part of its length";
+    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark} ${why}: its reactions, shear and moment are computed by the add-in's exact solution` });
+  };
   const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null;
   const live = writeLoadRows(ctx, rows, row, row, uniform, false);
   for (const i of live) {
     const refs = channelRefs(ctx, i, row, n, uniform);
-    grid.set(row, layout.r1[i]!, f(writer.reaction(member, refs, 1)));
-    grid.set(row, layout.r2[i]!, f(writer.reaction(member, refs, 2)));
+    put(row, layout.r1[i]!, writer.reaction(member, refs, 1));
+    for (let k = 1; k <= interiors; k++) put(row + k, layout.r1[i]!, writer.reaction(member, refs, k + 1));
+    put(row, layout.r2[i]!, writer.reaction(member, refs, supportCount));
     const c = layout.cases.indexOf(layout.channels[i]!);
     if (c >= 0) {
-      grid.set(row, layout.vMax[c]!, f(writer.shearMax(member, refs)));
-      grid.set(row, layout.mMax[c]!, f(writer.momentMax(member, refs)));
+      put(row, layout.vMax[c]!, writer.shearMax(member, refs));
+      put(row, layout.mMax[c]!, writer.momentMax(member, refs));
     }
   }
   const at = ch(ctx, "AT");
   if (at !== undefined) {
     // A_T is an area, never negative: a member that only takes the uplift end of an overhanging
     // member it carries gets 0 (no reduction, the conservative reading), in both versions alike.
-    grid.set(row, layout.areaT, live.includes(at) ? f(`MAX(0,${a1(row, layout.r1[at]!)}+${a1(row, layout.r2[at]!)})`) : 0);
+    const reactions = [a1(row, layout.r1[at]!), ...Array.from({ length: interiors }, (_, k) => a1(row + 1 + k, layout.r1[at]!)), a1(row, layout.r2[at]!)];
+    grid.set(row, layout.areaT, live.includes(at) ? f(`MAX(0,${reactions.join("+")})`) : 0);
     grid.set(row, layout.kll, f(kllFormula(ctx, m, "flexural")));
-    grid.set(row, layout.llr, f(writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
+    grid.set(row, layout.llr, f(ctx.writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
   }
-  return { member: m.index, row, rows: n, live };
+  return { member: m.index, row, rows: n, live, ...(interiors > 0 ? { interiors } : {}) };
 }
 
 /** Sum of cells as formula text ("0" when none). */
@@ -416,6 +458,7 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
 /** A wall or foundation: what it receives, summed per channel (the reactions that close the path). */
 function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
   const { grid, layout } = ctx;
+  const base = ctx.baseOf.get(m.index);
   writeIdentity(ctx, m, row);
   const rows: LoadRow[] = (ctx.into.get(m.index) ?? []).map((d) => receivedRow(ctx, d, true));
   for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
@@ -424,6 +467,21 @@ function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
   for (const i of live) {
     const b = layout.block[i]! + 1;
     grid.set(row, layout.total[i]!, f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`));
+  }
+  // The length the load is spread over: a wall on a beam, End at - Start at; else the Span cell (a
+  // wall's or footing's length); a footing without one under a single wall, that wall's length.
+  let length: string | null = null;
+  if (base?.until !== undefined && base.at !== null) length = `${inputRef(ctx, base.until.cell)}-${inputRef(ctx, base.at.cell)}`;
+  else if (m.span !== null && m.span.value !== null && m.span.value > 0) length = inputRef(ctx, m.span.cell);
+  else {
+    const walls = (ctx.into.get(m.index) ?? []).filter((d) => ctx.model.members[d.from]!.type === "wall");
+    const only = walls.length === 1 && (ctx.into.get(m.index) ?? []).length === 1 ? ctx.places.get(walls[0]!.from) : undefined;
+    if (only !== undefined && ctx.wallLengths.has(only.member)) length = a1Absolute(only.row, layout.wallLength);
+  }
+  if (length !== null) {
+    ctx.wallLengths.add(m.index);
+    grid.set(row, layout.wallLength, f(length));
+    for (const i of live) grid.set(row, layout.perLength[i]!, f(`${a1(row, layout.total[i]!)}/${a1(row, layout.wallLength)}`));
   }
   return { member: m.index, row, rows: n, live };
 }
@@ -490,7 +548,7 @@ function writeColumnHeaders(ctx: Context, row: number): void {
     names.push([layout.arriving[i]!, `${c.label} arriving (${c.forceUnit})`], [layout.total[i]!, `${c.label} total (${c.forceUnit})`]);
   });
   layout.cases.forEach((c, k) => names.push([layout.vMax[k]!, `${c.label} V max (${u.force})`], [layout.mMax[k]!, `${c.label} M max (${u.moment})`]));
-  grid.set(row - 1, layout.r1[0] ?? 0, "Reactions at the first (R1) and second (R2) support");
+  grid.set(row - 1, layout.r1[0] ?? 0, "Reactions at the first (R1) and last (R2) support; a continuous member's interior supports in R1 below its first row, in order");
   if (layout.vMax.length > 0) grid.set(row - 1, layout.vMax[0]!, "Shear and moment maxima");
   grid.set(row - 1, layout.arriving[0] ?? 0, "Columns: loads arriving at the level and totals; foundations and walls: totals");
   grid.set(row - 1, layout.areaT, "Live load reduction (ASCE/SEI 7-22 Sec. 4.7) and factored load (Sec. 2.3.1)");
@@ -502,7 +560,10 @@ function writeColumnHeaders(ctx: Context, row: number): void {
     [layout.llr, "LLR factor"],
     [layout.reducedLive, `L reduced (${u.force})`],
     [layout.factored, `Factored LRFD (${u.force})`],
+    [layout.wallLength, `Wall length (${u.length})`],
   );
+  grid.set(row - 1, layout.wallLength, "Walls and foundations: length and load per unit length");
+  layout.channels.forEach((c: Channel, i) => names.push([layout.perLength[i]!, `${c.label} per length (${c.lineUnit})`]));
   for (const [c, name] of names) grid.set(row, c, name);
 }
 
@@ -555,7 +616,8 @@ export function planSheet(input: PlanInput): SheetPlan {
   const { model, order } = input;
   const position = new Map(order.map((m, i) => [m, i]));
   const deliveries = input.deliveries.filter((d) => position.has(d.from) && position.has(d.to));
-  const into = groupBy([...deliveries].sort((a, b) => position.get(a.from)! - position.get(b.from)! || (a.end === "start" ? -1 : 1)), (d) => d.to);
+  const along = (d: Delivery): number => (d.end === "start" ? 0 : d.end === "interior" ? (d.interior ?? 0) : Number.MAX_SAFE_INTEGER);
+  const into = groupBy([...deliveries].sort((a, b) => position.get(a.from)! - position.get(b.from)! || along(a) - along(b)), (d) => d.to);
   const loadsOn = groupBy(
     input.placedLoads.filter((p) => position.has(p.member)),
     (p) => p.member,
@@ -573,6 +635,10 @@ export function planSheet(input: PlanInput): SheetPlan {
     places: new Map(),
     into,
     loadsOn,
+    interiors: input.interiors ?? new Map(),
+    valueOnly: [],
+    baseOf: new Map(deliveries.filter((d) => model.members[d.from]!.type === "wall").map((d) => [d.from, d])),
+    wallLengths: new Set(),
   };
   const balance = writeHeader(ctx, input.title);
   let row = balance.headerRow + 1;
@@ -590,7 +656,7 @@ export function planSheet(input: PlanInput): SheetPlan {
     balance,
     first,
     row - 1,
-    places.filter((p) => isTerminal(model.members[p.member]!.type)),
+    places.filter((p) => endsPath(model.members[p.member]!)),
   );
-  return { sheet: input.sheet, cells: ctx.grid.rows, layout, places, balance, headerRow: balance.headerRow };
+  return { sheet: input.sheet, cells: ctx.grid.rows, layout, places, balance, headerRow: balance.headerRow, valueOnly: ctx.valueOnly };
 }

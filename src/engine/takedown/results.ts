@@ -13,7 +13,7 @@ import type { CellValue, LoadCase, Problem, UnitSystem } from "./types";
 export interface MemberResult {
   readonly type: string;
   readonly level: string;
-  /** Per case: [first support, second support] for beams; [base] for columns. */
+  /** Per case: one value per support in order along the member for beams ([start, end] on two supports); [base] for columns. */
   readonly reactions: Readonly<Record<string, readonly number[]>>;
   readonly shearMax: Readonly<Record<string, number>>;
   readonly momentMax: Readonly<Record<string, number>>;
@@ -39,6 +39,12 @@ export interface TakedownResults {
   readonly members: Readonly<Record<string, MemberResult>>;
   readonly columns: Readonly<Record<string, ColumnResult>>;
   readonly foundations: Readonly<Record<string, Readonly<Record<string, number>>>>;
+  /**
+   * Walls and foundations whose length is known (a wall on a beam: End at - Start at; else the
+   * Span cell; a footing under one wall: that wall's length): the length and, per case, the total
+   * per unit length (kip/ft or kN/m).
+   */
+  readonly perLength: Readonly<Record<string, { readonly length: number; readonly loads: Readonly<Record<string, number>> }>>;
   readonly balance: Readonly<Record<string, { readonly applied: number; readonly supports: number }>>;
   readonly problems: readonly Problem[];
 }
@@ -94,6 +100,7 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
   const members = byMark<MemberResult>();
   const columns = byMark<ColumnResult>();
   const foundations = byMark<Record<string, number>>();
+  const perLength = byMark<{ length: number; loads: Record<string, number> }>();
   const caseIndex = layout.cases.map((c) => ({ key: c.key, i: layout.channels.indexOf(c) }));
   const hasAt = layout.channels.some((c) => c.key === "AT");
   for (const place of plan.places) {
@@ -102,6 +109,10 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
     const at = (col: number): number => numberAt(read, row, col);
     if (isTerminal(m.type)) {
       foundations[m.mark] = Object.fromEntries(caseIndex.map(({ key, i }) => [key, at(layout.total[i]!)]));
+      const length = read(row, layout.wallLength);
+      if (length !== null && length !== undefined && length !== "") {
+        perLength[m.mark] = { length: at(layout.wallLength), loads: Object.fromEntries(caseIndex.map(({ key, i }) => [key, at(layout.perLength[i]!)])) };
+      }
       continue;
     }
     const tributaryArea = hasAt ? at(layout.areaT) : 0;
@@ -110,7 +121,10 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
       members[m.mark] = {
         type: m.type,
         level: m.level,
-        reactions: Object.fromEntries(caseIndex.map(({ key, i }) => [key, [at(layout.r1[i]!), at(layout.r2[i]!)]])),
+        // One value per support in order along the member: first, the interior ones (R1 below), last.
+        reactions: Object.fromEntries(
+          caseIndex.map(({ key, i }) => [key, [at(layout.r1[i]!), ...Array.from({ length: place.interiors ?? 0 }, (_, k) => numberAt(read, row + 1 + k, layout.r1[i]!)), at(layout.r2[i]!)]]),
+        ),
         shearMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.vMax[k]!)])),
         momentMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.mMax[k]!)])),
         tributaryArea,
@@ -143,7 +157,7 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
   const balance = Object.fromEntries(
     layout.cases.map((c, k) => [c.key, { applied: numberAt(read, plan.balance.appliedRow, plan.balance.caseCols[k]), supports: numberAt(read, plan.balance.supportsRow, plan.balance.caseCols[k]) }]),
   );
-  return { units: model.units, members, columns, foundations, balance, problems };
+  return { units: model.units, members, columns, foundations, perLength, balance, problems };
 }
 
 /**

@@ -66,17 +66,21 @@ export function scanResults(plan: SheetPlan, model: TakedownModel, read: CellRea
   };
   for (const place of plan.places) {
     const m = model.members[place.member]!;
-    const bad = resultColumns(plan, typeOf(model, place.member), place.live).filter((c) => isBad(read(place.row, c)));
-    if (bad.length === 0) continue;
-    const first = bad[0]!;
-    const v = read(place.row, first);
+    // The first row's results, then a continuous member's interior reactions (R1, on the rows below).
+    const cells: [number, number][] = resultColumns(plan, typeOf(model, place.member), place.live).map((c) => [place.row, c]);
+    for (let k = 1; k <= (place.interiors ?? 0); k++) for (const i of place.live) cells.push([place.row + k, plan.layout.r1[i]!]);
+    const badCells = cells.filter(([r, c]) => isBad(read(r, c)));
+    if (badCells.length === 0) continue;
+    const bad = badCells.map(([, c]) => c);
+    const [firstRow, first] = badCells[0]!;
+    const v = read(firstRow, first);
     const shown = String(v);
     const more = bad.length > 1 ? ` (and ${bad.length - 1} more of its results)` : "";
     problems.push({
       code: "errorResult",
       message: `${m.mark}: ${header(first)} is ${shown} on the generated sheet${more}; the results of ${m.mark} and of what it rests on are not usable. Check the inputs of its row (${where(m.markCell)}) and its loads.`,
       sheet: plan.sheet,
-      cell: a1(place.row, first),
+      cell: a1(firstRow, first),
       mark: m.mark,
     });
   }

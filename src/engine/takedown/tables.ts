@@ -83,7 +83,23 @@ export const LOADS_SPEC = {
   },
 } as const satisfies TableSpec<string>;
 
+/**
+ * Bearings (optional): interior supports of continuous members. Each row puts a support under
+ * member Mark at At (from its start end, overhang included), held by Support, at Support at along
+ * it when that is a beam, girder or joist.
+ */
+export const BEARINGS_SPEC = {
+  title: "Bearings",
+  columns: {
+    mark: spec("Mark", "none", true),
+    support: spec("Support", "none", true),
+    at: spec("At", "length", true),
+    supportAt: spec("Support at", "length"),
+  },
+} as const satisfies TableSpec<string>;
+
 export type ZonesColumn = keyof typeof ZONES_SPEC.columns;
+export type BearingsColumn = keyof typeof BEARINGS_SPEC.columns;
 export type MembersColumn = keyof typeof MEMBERS_SPEC.columns;
 export type LoadsColumn = keyof typeof LOADS_SPEC.columns;
 

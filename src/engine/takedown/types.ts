@@ -53,6 +53,8 @@ export type ProblemCode =
   | "emptyTable"
   /** A member carries more load rows than the worksheet functions accept. */
   | "tooManyLoads"
+  /** A continuous member whose supports cannot hold it (two supports at one point). */
+  | "unstable"
   /** A computed result on the generated sheet is an error value, or a number that is not finite. */
   | "errorResult";
 

@@ -6,11 +6,15 @@
  */
 import { a1 } from "./a1";
 import { formatNumber } from "./cells";
-import { isFlexural, isTerminal, memberLength, type ExtraLoad, type Member, type NumberInput, type SupportInput, type TakedownModel } from "./model";
+import { solveBeam } from "../beam";
+import { isFlexural, isTerminal, memberLength, type Bearing, type ExtraLoad, type Member, type NumberInput, type SupportInput, type TakedownModel } from "./model";
 import type { CellRef, Problem } from "./types";
 
-/** Which end of the carried member a delivery comes from: a beam's start or end, a column's base. */
-export type DeliveryEnd = "start" | "end" | "base";
+/**
+ * Which support of the carried member a delivery comes from: a beam's start or end, an interior
+ * support of a continuous member (a Bearings row), a column's base.
+ */
+export type DeliveryEnd = "start" | "end" | "interior" | "base";
 
 /** The reaction of one end of a member, handed to the member that supports it. */
 export interface Delivery {
@@ -23,6 +27,26 @@ export interface Delivery {
   readonly at: NumberInput | null;
   /** The support cell of the carried member (where a cycle through this delivery is reported). */
   readonly supportCell: CellRef | null;
+  /** An interior support: its number among the member's interior supports, 1-based, in order along the member. */
+  readonly interior?: number;
+  /** A wall standing on a beam, girder or joist: where it ends along it (End at); it starts at `at`. */
+  readonly until?: NumberInput;
+}
+
+/** An interior support of a continuous member, accepted. */
+export interface InteriorSupport {
+  readonly bearing: Bearing;
+  /** Position along the member (the Bearings At cell). */
+  readonly at: NumberInput;
+}
+
+/**
+ * Text naming the support a delivery comes from, as the generated sheet's Source column shows it:
+ * "B1 start", "B1 end", "C1 base", and "B1 support 2" for the first interior support (supports
+ * numbered from 1 at the start support, in order along the member).
+ */
+export function deliveryLabel(mark: string, d: Delivery): string {
+  return d.end === "interior" ? `${mark} support ${(d.interior ?? 0) + 1}` : `${mark} ${d.end}`;
 }
 
 /** A Loads-table row accepted, with the member it loads. */
@@ -36,6 +60,10 @@ export interface CheckedPath {
   readonly deliveries: readonly Delivery[];
   readonly placedLoads: readonly PlacedLoad[];
   readonly problems: readonly Problem[];
+  /** Interior supports of each continuous member (by member index), in order along it. */
+  readonly interiors: ReadonlyMap<number, readonly InteriorSupport[]>;
+  /** Members left out because a Bearings row of theirs cannot be used (analysing them without it would be wrong). */
+  readonly excluded: ReadonlySet<number>;
 }
 
 function problemAtCell(cell: CellRef | null, fallback: CellRef, code: Problem["code"], message: string, mark: string): Problem {
@@ -75,6 +103,53 @@ function checkSupport(m: Member, which: DeliveryEnd, s: SupportInput, byMark: Re
     return null;
   }
   return { from: m.index, end: which, to: target.index, at: s.at, supportCell: s.cell };
+}
+
+/**
+ * What a wall bears on (its Start support): a wall below or a foundation take its total; a beam,
+ * girder or joist takes it as a line load from Start at to End at; a column cannot carry a wall
+ * (a wall's load is spread along its length). A blank Start support: the wall ends the path.
+ */
+function checkWallBase(m: Member, byMark: ReadonlyMap<string, Member>, problems: Problem[]): Delivery | null {
+  const s = m.start;
+  if (s.mark === "") return null;
+  if (s.mark === m.mark) {
+    problems.push(problemAtCell(s.cell, m.markCell, "selfSupport", `${m.mark} names itself as the member it bears on.`, m.mark));
+    return null;
+  }
+  const target = byMark.get(s.mark);
+  if (target === undefined) {
+    problems.push(problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: Start support "${s.mark}" (what the wall bears on) is not a mark in the Members table.`, m.mark));
+    return null;
+  }
+  if (!target.valid) return null;
+  if (target.type === "column") {
+    problems.push(
+      problemAtCell(s.cell, m.markCell, "badValue", `${m.mark}: a wall cannot bear on column ${target.mark}; give the wall below, the beam, girder or joist under it (with Start at and End at), or its foundation.`, m.mark),
+    );
+    return null;
+  }
+  if (!isFlexural(target.type)) return { from: m.index, end: "base", to: target.index, at: null, supportCell: s.cell };
+  const a = s.at;
+  const b = m.end.at;
+  for (const [n, name] of [[a, "Start at"], [b, "End at"]] as const) {
+    if (n === null || n.value === null) {
+      problems.push(problemAtCell(n?.cell ?? s.cell, m.markCell, "missingPosition", `${m.mark}: ${name} is blank; a wall on ${target.mark} (a ${target.type}) needs Start at and End at, where it stands along ${target.mark}.`, m.mark));
+      return null;
+    }
+  }
+  const length = memberLength(target);
+  for (const [n, name] of [[a!, "Start at"], [b!, "End at"]] as const) {
+    if (length !== null && (n.value! < 0 || n.value! > length)) {
+      problems.push(problemAtCell(n.cell, m.markCell, "supportOutside", `${m.mark}: ${name} ${formatNumber(n.value!)} is outside ${target.mark}, which runs from 0 to ${formatNumber(length)}.`, m.mark));
+      return null;
+    }
+  }
+  if (!(b!.value! > a!.value!)) {
+    problems.push(problemAtCell(b!.cell, m.markCell, "badValue", `${m.mark}: End at ${formatNumber(b!.value!)} must be greater than Start at ${formatNumber(a!.value!)} (the wall stands from Start at to End at along ${target.mark}).`, m.mark));
+    return null;
+  }
+  return { from: m.index, end: "base", to: target.index, at: a!, until: b!, supportCell: s.cell };
 }
 
 /**
@@ -119,6 +194,108 @@ function placeLoad(load: ExtraLoad, byMark: ReadonlyMap<string, Member>, problem
   return { load, member: m.index };
 }
 
+/** Start and end support positions of a flexural member at build time (overhangs included), or null. */
+function endSupports(m: Member): [number, number] | null {
+  const span = m.span?.value ?? null;
+  if (span === null) return null;
+  const s0 = m.startOverhang?.value ?? 0;
+  return [s0, s0 + span];
+}
+
+/** The holder named by a Bearings row, checked like an end's support (exists, not the member, position on it). */
+function bearingHolder(m: Member, b: Bearing, byMark: ReadonlyMap<string, Member>, excluded: ReadonlySet<number>, problems: Problem[]): { ok: true; target: Member } | { ok: false; blocking: boolean } {
+  const label = `Bearings row ${b.sheetRow} (${m.mark})`;
+  const s = b.support;
+  if (s.mark === m.mark) {
+    problems.push(problemAtCell(s.cell, b.markCell, "selfSupport", `${label}: ${m.mark} names itself as its support.`, m.mark));
+    return { ok: false, blocking: true };
+  }
+  const target = byMark.get(s.mark);
+  if (target === undefined) {
+    problems.push(problemAtCell(s.cell, b.markCell, "unknownSupport", `${label}: Support "${s.mark}" is not a mark in the Members table.`, m.mark));
+    return { ok: false, blocking: true };
+  }
+  if (!target.valid || excluded.has(target.index)) return { ok: false, blocking: true };
+  if (!isFlexural(target.type)) return { ok: true, target };
+  if (s.at === null || s.at.value === null) {
+    problems.push(problemAtCell(s.at?.cell ?? s.cell, b.markCell, "missingPosition", `${label}: Support at is blank; give the position along ${target.mark} (a ${target.type}) where ${m.mark} bears.`, m.mark));
+    return { ok: false, blocking: true };
+  }
+  const length = memberLength(target);
+  if (length !== null && (s.at.value < 0 || s.at.value > length)) {
+    problems.push(problemAtCell(s.at.cell, b.markCell, "supportOutside", `${label}: Support at ${formatNumber(s.at.value)} is outside ${target.mark}, which runs from 0 to ${formatNumber(length)}.`, m.mark));
+    return { ok: false, blocking: true };
+  }
+  return { ok: true, target };
+}
+
+/**
+ * The Bearings rows: each must name a beam, girder or joist of the Members table, lie strictly
+ * between that member's end supports, bear on something that exists, and leave the member
+ * solvable (the exact beam engine is asked, with the member's pins and a unit load). A member with
+ * a Bearings row that cannot be used is left out of the takedown with the problem: analysing it
+ * without a support the engineer placed would misstate every reaction.
+ */
+function checkBearings(model: TakedownModel, byMark: ReadonlyMap<string, Member>, problems: Problem[]): { interiors: Map<number, InteriorSupport[]>; holders: Map<Bearing, Member>; excluded: Set<number> } {
+  const excluded = new Set<number>();
+  const accepted = new Map<number, InteriorSupport[]>();
+  const holders = new Map<Bearing, Member>();
+  for (const b of model.bearings) {
+    const m = byMark.get(b.mark);
+    if (b.mark !== "" && m === undefined) {
+      problems.push(problemAtCell(b.markCell, b.markCell, "unknownSupport", `Bearings row ${b.sheetRow}: no member ${b.mark} in the Members table.`, b.mark));
+      continue;
+    }
+    if (m === undefined) continue;
+    if (!b.valid) {
+      excluded.add(m.index);
+      continue;
+    }
+    if (!m.valid) continue;
+    if (!isFlexural(m.type)) {
+      problems.push(problemAtCell(b.markCell, b.markCell, "badValue", `Bearings row ${b.sheetRow}: ${m.mark} is a ${m.type}; only a beam, girder or joist is continuous over interior supports.`, m.mark));
+      continue;
+    }
+    const ends = endSupports(m);
+    const at = b.at!;
+    const length = memberLength(m);
+    if (ends === null || length === null) continue;
+    if (at.value! <= ends[0] || at.value! >= ends[1]) {
+      const where = at.value! < 0 || at.value! > length ? `outside ${m.mark}, which runs from 0 to ${formatNumber(length)}` : `not between ${m.mark}'s end supports (at ${formatNumber(ends[0])} and ${formatNumber(ends[1])})`;
+      problems.push(problemAtCell(at.cell, b.markCell, "supportOutside", `Bearings row ${b.sheetRow}: At ${formatNumber(at.value!)} is ${where}; an interior support lies between the end supports (${m.mark} is left out).`, m.mark));
+      excluded.add(m.index);
+      continue;
+    }
+    const list = accepted.get(m.index) ?? [];
+    list.push({ bearing: b, at });
+    accepted.set(m.index, list);
+  }
+  for (const b of model.bearings) {
+    const m = byMark.get(b.mark);
+    if (m === undefined || !b.valid || !accepted.get(m.index)?.some((s) => s.bearing === b)) continue;
+    const held = bearingHolder(m, b, byMark, excluded, problems);
+    if (held.ok) holders.set(b, held.target);
+    else if (held.blocking) excluded.add(m.index);
+  }
+  const interiors = new Map<number, InteriorSupport[]>();
+  for (const [index, list] of accepted) {
+    if (excluded.has(index)) continue;
+    const m = model.members[index]!;
+    const sorted = [...list].sort((a, b) => a.at.value! - b.at.value!);
+    const ends = endSupports(m)!;
+    const pins = [ends[0], ...sorted.map((s) => s.at.value!), ends[1]].map((x) => ({ x, type: "pin" as const }));
+    const solved = solveBeam({ span: memberLength(m)!, supports: pins, loads: [{ kind: "line", start: 0, end: memberLength(m)!, w1: 1, w2: 1 }] });
+    if (!solved.ok) {
+      const clash = sorted.find((s, k) => s.at.value === (k === 0 ? ends[0] : sorted[k - 1]!.at.value) || s.at.value === ends[1]) ?? sorted[sorted.length - 1]!;
+      problems.push(problemAtCell(clash.at.cell, clash.bearing.markCell, "unstable", `Bearings row ${clash.bearing.sheetRow}: ${m.mark}'s supports cannot hold it as one continuous member (${solved.error.message}); ${m.mark} is left out.`, m.mark));
+      excluded.add(index);
+      continue;
+    }
+    interiors.set(index, sorted);
+  }
+  return { interiors, holders, excluded };
+}
+
 /**
  * Check the supports of every valid member and the Loads rows.
  * @param model - the takedown model
@@ -128,13 +305,26 @@ export function checkPath(model: TakedownModel): CheckedPath {
   const problems: Problem[] = [];
   const byMark = new Map<string, Member>();
   for (const m of model.members) if (m.firstOfMark) byMark.set(m.mark, m);
+  const bearings = checkBearings(model, byMark, problems);
+  const { excluded, interiors } = bearings;
+  const usable = new Map([...byMark].map(([k, m]) => [k, excluded.has(m.index) ? { ...m, valid: false } : m]));
   const deliveries: Delivery[] = [];
+  for (const [index, list] of interiors) {
+    list.forEach((s, k) => {
+      const target = bearings.holders.get(s.bearing)!;
+      deliveries.push({ from: index, end: "interior", to: target.index, at: isFlexural(target.type) ? s.bearing.support.at : null, supportCell: s.bearing.support.cell, interior: k + 1 });
+    });
+  }
   for (const m of model.members) {
-    if (!m.valid || isTerminal(m.type)) continue;
+    if (m.valid && m.type === "wall") {
+      const d = checkWallBase(m, usable, problems);
+      if (d) deliveries.push(d);
+    }
+    if (!m.valid || isTerminal(m.type) || excluded.has(m.index)) continue;
     const ends: [DeliveryEnd, SupportInput][] = isFlexural(m.type) ? [["start", m.start], ["end", m.end]] : [["base", m.start]];
     const held: Delivery[] = [];
     for (const [which, s] of ends) {
-      const d = checkSupport(m, which, s, byMark, problems);
+      const d = checkSupport(m, which, s, usable, problems);
       if (d) held.push(d);
     }
     const samePoint = held.length === 2 ? samePointProblem(m, held[0]!, held[1]!, model) : null;
@@ -144,8 +334,8 @@ export function checkPath(model: TakedownModel): CheckedPath {
   const placedLoads: PlacedLoad[] = [];
   for (const load of model.loads) {
     if (!load.valid) continue;
-    const p = placeLoad(load, byMark, problems);
+    const p = placeLoad(load, usable, problems);
     if (p) placedLoads.push(p);
   }
-  return { deliveries, placedLoads, problems };
+  return { deliveries: deliveries.filter((d) => !excluded.has(d.to)), placedLoads, problems, interiors, excluded };
 }
