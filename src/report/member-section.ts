@@ -39,7 +39,11 @@ function heading(m: MemberLoads): Html {
 /** How a load is described in the Source column. */
 function describe(l: AppliedLoad): string {
   const o = l.origin;
-  if (o.kind === "member") return o.end === "base" ? `Load of ${o.mark} (${o.type}) at its base` : `Reaction of ${o.mark} (${o.type}) at its ${o.end}`;
+  if (o.kind === "member") {
+    if (o.end === "base") return `Load of ${o.mark} (${o.type}) at its base`;
+    if (o.end === "interior") return `Reaction of ${o.mark} (${o.type}, continuous) at an interior support`;
+    return `Reaction of ${o.mark} (${o.type}) at its ${o.end}`;
+  }
   if (o.kind === "loadsRow") return l.source;
   if (o.kind === "selfWeight") return "Self weight: wD × height";
   const parts = [...(o.zone !== null ? [`Zone ${o.zone} × trib`] : []), ...o.extras.map((c) => `w${c} of the Members table`)];
