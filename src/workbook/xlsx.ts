@@ -517,7 +517,7 @@ export async function writeXlsx(wb: XlsxWorkbook, output: string, generated?: Me
   let refused: string | undefined;
   if (why === undefined) {
     await writeAtomically(output, (temporary) => {
-      refused = writeWithGeneratedSheets(wb.bytes!, sheets.map((s) => generatedSheet(generated.hf, s)), generated.definedNames(), temporary);
+      refused = writeWithGeneratedSheets(wb.bytes!, sheets.map((s) => generatedSheet(generated, s)), generated.definedNames(), temporary);
       if (refused !== undefined) throw new NotStreamed(refused);
     }).catch((e: unknown) => {
       if (!(e instanceof NotStreamed)) throw e;
@@ -563,10 +563,15 @@ function ownFormulaChanged(wb: XlsxWorkbook, headless: Headless, generated: Read
   return undefined;
 }
 
-/** A generated sheet of the engine as the direct writer takes it: formulas in the file spelling with their values. */
-function generatedSheet(hf: HyperFormula, name: string): GeneratedSheet {
+/**
+ * A generated sheet of the engine as the direct writer takes it: formulas in the file spelling
+ * with their values. Its content is what the port gave the engine when it has it (turning half a
+ * million parsed formulas back into text takes the engine seconds), else the engine's.
+ */
+function generatedSheet(port: MemoryWorkbookPort, name: string): GeneratedSheet {
+  const hf = port.hf;
   const sheet = hf.getSheetId(name)!;
-  const content = hf.getSheetSerialized(sheet);
+  const content = port.writtenContent(name) ?? hf.getSheetSerialized(sheet);
   const values = hf.getSheetValues(sheet);
   const height = Math.max(content.length, values.length);
   return {
