@@ -170,6 +170,19 @@ describe("generated sheets written straight into the package", () => {
     expect(read.sheets.map((s) => s.name)).toContain("Takedown");
   });
 
+  it("writes a generated sheet as the engine holds it after a later edit, not as first filled", async () => {
+    const input = join(scratch.dir, "edited.xlsx");
+    const output = join(scratch.dir, "edited-out.xlsx");
+    writeFileSync(input, readFileSync(SAMPLE));
+    const { workbook, port } = await takedownOfFile(input, { units: "US" });
+    port.setCell("Takedown", "A2", "edited after the build");
+    port.setCell("Takedown", "Z1", "=1+2");
+    expect((await writeXlsx(workbook, output, port)).streamed).toBe(true);
+    const read = await readXlsx(output);
+    expect(read.sheets.find((s) => s.name === "Takedown")!.rows[1]![0]).toBe("'edited after the build");
+    expect(read.formulas.find((f) => f.sheet === "Takedown" && f.row === 0 && f.col === 25)).toMatchObject({ formula: "1+2", cached: 3 });
+  });
+
   it("reads a zip's directory and declines what it does not copy", () => {
     const zip = readZip(readFileSync(SAMPLE));
     expect(Array.isArray(zip) && zip.map((e) => e.name)).toContain("xl/workbook.xml");
