@@ -116,6 +116,12 @@ export class MemoryWorkbookPort implements WorkbookPort {
   private readonly selectionHandlers = new Set<(selection: CellSelection) => void>();
 
   private current: Headless;
+  /**
+   * The content each sheet the port filled whole was given to the engine with ("=formula" in the
+   * port's spelling, values), kept so that writing a file need not turn the engine's parsed
+   * formulas back into text; dropped by any later write to that sheet.
+   */
+  private readonly written = new Map<string, RawCellContent[][]>();
 
   /**
    * @param headless - the engine holding the workbook
@@ -293,6 +299,7 @@ export class MemoryWorkbookPort implements WorkbookPort {
       this.hf.addSheet(sheet);
     }
     this.prepared.add(sheet);
+    this.written.delete(sheet);
     this.queued.set(sheet, [{ top: 0, left: 0, cells: [[marker]] }]);
   }
 
@@ -369,9 +376,14 @@ export class MemoryWorkbookPort implements WorkbookPort {
         if (blocks && !fresh.includes(name)) overlay(sheets[name]!, blocks);
       }
       const names = this.hf.getAllNamedExpressionsSerialized().filter((n) => n.scope === undefined && !["TRUE", "FALSE"].includes(n.name.toUpperCase()));
+      for (const name of this.hf.getSheetNames()) {
+        if (fresh.includes(name)) this.written.set(name, sheets[name]!);
+        else if (this.queued.has(name)) this.written.delete(name);
+      }
       this.current = this.rebuild(sheets);
       for (const n of names) this.hf.addNamedExpression(n.name, n.expression as string);
     } else {
+      for (const sheet of this.queued.keys()) this.written.delete(sheet);
       this.hf.batch(() => {
         for (const [sheet, blocks] of this.queued) {
           const id = this.sheetId(sheet);
@@ -398,6 +410,16 @@ export class MemoryWorkbookPort implements WorkbookPort {
     return [...this.prepared];
   }
 
+  /**
+   * A generated sheet's content as the port gave it to the engine ("=formula" in the engine's
+   * spelling, text marked with a leading apostrophe), or undefined when the sheet was written to
+   * since it was filled (then read it from the engine).
+   * @param sheet - the sheet's name as prepared
+   */
+  writtenContent(sheet: string): readonly (readonly RawCellContent[])[] | undefined {
+    return this.written.get(sheet);
+  }
+
   /** Workbook names defined through the port: name -> reference. */
   definedNames(): ReadonlyMap<string, string> {
     return this.names;
@@ -411,6 +433,7 @@ export class MemoryWorkbookPort implements WorkbookPort {
    */
   setCell(sheet: string, address: string, content: RawCellContent): void {
     const { row, col } = parseCell(address);
+    this.written.delete(sheet);
     this.hf.setCellContents({ sheet: this.sheetId(sheet), row, col }, [[content]]);
   }
 

@@ -20,6 +20,8 @@ import { DetailedCellError, ErrorType, HyperFormula, type CellValue as HfCellVal
 import { cellAddress, parseCell, sheetRef } from "./a1";
 import { writeAtomically } from "./files";
 import { callsLoadpath, createHeadless, excelErrorText, NAMESPACE, toEngineFormula, toFileFormula, type DefinedName, type Headless, type HeadlessOptions } from "./headless";
+import { exportSheets, type MemoryWorkbookPort } from "./memory-port";
+import { writeWithGeneratedSheets, type GeneratedCell, type GeneratedSheet } from "./xlsx-stream";
 
 /** A formula cell as found in the file. Rows and columns are 0-based. */
 export interface XlsxFormulaCell {
@@ -55,6 +57,8 @@ export interface XlsxSheet {
 export interface XlsxWorkbook {
   /** Absolute path it was read from (undefined when built in memory). */
   readonly path?: string;
+  /** The bytes of the file it was read from (the generated-sheet writer copies the user's parts from them). */
+  readonly bytes?: Buffer;
   /** The ExcelJS model: written back with its styles, tables and everything else untouched. */
   readonly excel: ExcelJS.Workbook;
   readonly sheets: readonly XlsxSheet[];
@@ -209,7 +213,7 @@ function readTables(ws: ExcelJS.Worksheet): XlsxTable[] {
  * @param excel - a loaded (or built) ExcelJS workbook.
  * @param path - where it came from, if a file.
  */
-export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkbook {
+export function fromExcelJs(excel: ExcelJS.Workbook, path?: string, bytes?: Buffer): XlsxWorkbook {
   const sheets: XlsxSheet[] = [];
   const formulas: XlsxFormulaCell[] = [];
   const tables: XlsxTable[] = [];
@@ -219,7 +223,7 @@ export function fromExcelJs(excel: ExcelJS.Workbook, path?: string): XlsxWorkboo
     formulas.push(...read.formulas);
     tables.push(...readTables(ws));
   });
-  return { ...(path ? { path } : {}), excel, sheets, formulas, tables, names: definedNamesOf(excel) };
+  return { ...(path ? { path } : {}), ...(bytes ? { bytes } : {}), excel, sheets, formulas, tables, names: definedNamesOf(excel) };
 }
 
 /** The start of a zip file (a local file header), and of an empty zip (its end record). */
@@ -277,7 +281,7 @@ export async function readXlsx(path: string): Promise<XlsxWorkbook> {
   } catch (e) {
     throw new Error(`${path}: not an .xlsx workbook that can be read (a damaged file? ${e instanceof Error ? e.message : String(e)}).`);
   }
-  return fromExcelJs(excel, full);
+  return fromExcelJs(excel, full, bytes);
 }
 
 /** The sheets as `createHeadless` takes them. */
@@ -475,16 +479,130 @@ export function cacheResults(wb: XlsxWorkbook, headless: Headless): RecalcSummar
   return { formulaCount: wb.formulas.length, loadpathCount, problems };
 }
 
+/** How {@link writeXlsx} wrote a file: streamed (generated sheets written directly), or through the ExcelJS model and why. */
+export interface WriteReport {
+  readonly streamed: boolean;
+  /** Why the file was not streamed (undefined when it was, or when no sheets were generated). */
+  readonly reason?: string;
+}
+
 /**
  * Write the workbook to a file. It writes exactly where it is told: callers (the CLI) write only
  * to a path the user named, so the input is replaced only when the user names it as the output.
  * The file is written to a temporary file in the same folder and renamed into place when
  * complete, so a failure leaves any earlier file at `output` as it was.
+ *
+ * With `generated` (the port a takedown was built in), the sheets the port generated are written
+ * too, and the workbook's own formula cells get their computed values cached, in one of two ways:
+ * - streamed (the usual case): when the workbook was read from a file and none of its own formula
+ *   cells computes a value other than the one the file holds (within 1e-12 relative), the file's
+ *   parts are copied byte for byte and only the generated sheets' XML is written, directly
+ *   (src/workbook/xlsx-stream.ts);
+ * - through the ExcelJS model otherwise (a workbook built in memory, an own formula whose value
+ *   changed, e.g. one that reads the generated sheet, an array formula of the user's, or a
+ *   package the direct writer does not read): every formula cached as by {@link cacheResults}.
  * @param wb - the workbook.
  * @param output - destination path.
+ * @param generated - the port whose generated sheets and names are written (undefined: the model as it is)
+ * @returns how the file was written
  */
-export async function writeXlsx(wb: XlsxWorkbook, output: string): Promise<void> {
+export async function writeXlsx(wb: XlsxWorkbook, output: string, generated?: MemoryWorkbookPort): Promise<WriteReport> {
+  if (generated === undefined) {
+    await writeAtomically(output, (temporary) => wb.excel.xlsx.writeFile(temporary));
+    return { streamed: false };
+  }
+  const sheets = generated.generatedSheets();
+  const own = new Set(sheets.map((s) => s.toLowerCase()));
+  const why = wb.bytes === undefined ? "built in memory" : ownFormulaChanged(wb, generated.headless, own);
+  let refused: string | undefined;
+  if (why === undefined) {
+    await writeAtomically(output, (temporary) => {
+      refused = writeWithGeneratedSheets(wb.bytes!, sheets.map((s) => generatedSheet(generated, s)), generated.definedNames(), temporary);
+      if (refused !== undefined) throw new NotStreamed(refused);
+    }).catch((e: unknown) => {
+      if (!(e instanceof NotStreamed)) throw e;
+    });
+    if (refused === undefined) return { streamed: true };
+  }
+  cacheResults(wb, generated.headless);
+  exportSheets(generated, wb.excel);
   await writeAtomically(output, (temporary) => wb.excel.xlsx.writeFile(temporary));
+  return { streamed: false, reason: why ?? refused };
+}
+
+/** The direct writer declined the package (the reason is its message); nothing was written. */
+class NotStreamed extends Error {}
+
+/**
+ * A computed value and the value a file caches alike: same kind, numbers within 1e-12 relative,
+ * errors by their text. ExcelJS reads a cached 0 as no value, so a computed 0 matches a formula
+ * without one (a program reading the file shows 0 for it either way).
+ */
+function sameCached(a: Cached, b: Cached): boolean {
+  if (a === 0 && b === undefined) return true;
+  if (typeof a === "number" && typeof b === "number") return a === b || Math.abs(a - b) <= 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+  if (typeof a === "object" && typeof b === "object") return a.error === b.error;
+  const blank = (x: Cached): Cached => (x === "" ? undefined : x);
+  return blank(a) === blank(b);
+}
+
+/**
+ * The first of the workbook's own formula cells (outside the sheets `generated`) whose computed
+ * value is not the one the file holds, as a reason; undefined when every one computes what the
+ * file holds. Array formulas count as changed (their other cells are not compared).
+ */
+function ownFormulaChanged(wb: XlsxWorkbook, headless: Headless, generated: ReadonlySet<string>): string | undefined {
+  const hf = headless.hf;
+  for (const f of wb.formulas) {
+    if (generated.has(f.sheet.toLowerCase())) continue;
+    const where = `${sheetRef(f.sheet)}!${cellAddress(f.row, f.col)}`;
+    const address = { sheet: hf.getSheetId(f.sheet)!, row: f.row, col: f.col };
+    if (f.arrayRef !== undefined || hf.getCellType(address) === "ARRAYFORMULA") return `${where} is an array formula`;
+    if (!sameCached(cachedOf(hf.getCellValue(address)), f.cached)) return `${where} computes a value the file does not hold`;
+  }
+  return undefined;
+}
+
+/**
+ * A generated sheet of the engine as the direct writer takes it: formulas in the file spelling
+ * with their values. Its content is what the port gave the engine when it has it (turning half a
+ * million parsed formulas back into text takes the engine seconds), else the engine's.
+ */
+function generatedSheet(port: MemoryWorkbookPort, name: string): GeneratedSheet {
+  const hf = port.hf;
+  const sheet = hf.getSheetId(name)!;
+  const content = port.writtenContent(name) ?? hf.getSheetSerialized(sheet);
+  const values = hf.getSheetValues(sheet);
+  const height = Math.max(content.length, values.length);
+  return {
+    name,
+    *rows() {
+      for (let r = 0; r < height; r++) yield { row: r, cells: cellsOf(r) };
+    },
+  };
+  function* cellsOf(r: number): Generator<{ col: number; cell: GeneratedCell }> {
+    const row = content[r] ?? [];
+    const vals = values[r] ?? [];
+    const width = Math.max(row.length, vals.length);
+    for (let c = 0; c < width; c++) {
+      const x = row[c];
+      if (typeof x === "string" && x.startsWith("=")) {
+        const value = cachedOf(vals[c] ?? null);
+        const formula = toFileFormula(x.slice(1));
+        const spills = (vals[c + 1] != null && row[c + 1] == null) || (values[r + 1]?.[c] != null && content[r + 1]?.[c] == null);
+        if (spills && hf.getCellType({ sheet, row: r, col: c }) === "ARRAYFORMULA") {
+          const size = arrayExtent(hf, sheet, r, c);
+          yield { col: c, cell: { formula, arrayRef: `${cellAddress(r, c)}:${cellAddress(r + size.rows - 1, c + size.cols - 1)}`, value } };
+        } else yield { col: c, cell: { formula, value } };
+      } else if (x !== null && x !== undefined && x !== "") {
+        yield { col: c, cell: { value: typeof x === "string" && x.startsWith("'") ? x.slice(1) : (x as number | string | boolean) } };
+      } else {
+        // A cell a spilled result reaches: its value (blank padding left out).
+        const value = cachedOf(vals[c] ?? null);
+        if (value !== undefined && value !== "") yield { col: c, cell: { value } };
+      }
+    }
+  }
 }
 
 /** "Sheet!A1" for a problem, with the sheet quoted when it needs it. */

@@ -9,10 +9,9 @@
  */
 import { join, resolve } from "node:path";
 import { sheetRef } from "../../workbook/a1";
-import { exportSheets } from "../../workbook/memory-port";
 import { DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
 import { writeTextAtomically } from "../../workbook/files";
-import { cacheResults, writeXlsx } from "../../workbook/xlsx";
+import { writeXlsx } from "../../workbook/xlsx";
 import type { Problem, TakedownBuildResult, TakedownJson, UnitSystem } from "../../workbook/takedown-api";
 import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
 import { fixedDecimals, formatDifference, formatQuantity, type Quantity } from "../../drawings/format";
@@ -143,9 +142,7 @@ export async function takedownFile(input: string, output: string | undefined, js
   }
   io.out("");
   if (output !== undefined && result.ok) {
-    cacheResults(workbook, port.headless);
-    exportSheets(port, workbook.excel);
-    await writeXlsx(workbook, resolve(output));
+    await writeXlsx(workbook, resolve(output), port);
     io.out(`Workbook written to ${output}.`);
   } else if (output !== undefined) io.out(`No workbook written to ${output}: nothing could be built.`);
   if (jsonPath !== undefined) {
