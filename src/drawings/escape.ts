@@ -12,17 +12,21 @@ const ENTITY: Readonly<Record<string, string>> = {
   ">": "&gt;",
   '"': "&quot;",
   "'": "&#39;",
+  // Next line and line separator: some XML parsers (XML 1.1 rules) turn them into a line feed
+  // when they stand as themselves; as character references they come through unchanged.
+  "\u0085": "&#133;",
+  "\u2028": "&#8232;",
 };
 
 /**
  * Escape text for use as XML character data or a quoted attribute value. Characters that XML
  * cannot carry at all are dropped, so the result is always well-formed.
  * @param text - any text, e.g. a member mark read from a cell
- * @returns the text with `& < > " '` replaced by entities
+ * @returns the text with `& < > " '` (and U+0085, U+2028) replaced by entity or character references
  * @example escapeXml('<img src=x>') === '&lt;img src=x&gt;'
  */
 export function escapeXml(text: string): string {
-  return text.replace(FORBIDDEN, "").replace(/[&<>"']/g, (c) => ENTITY[c] ?? c);
+  return text.replace(FORBIDDEN, "").replace(/[&<>"'\u0085\u2028]/g, (c) => ENTITY[c] ?? c);
 }
 
 /**
