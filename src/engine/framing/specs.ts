@@ -2,12 +2,7 @@
  * The plan tables' columns (headers, units, required), declared once as data and matched by the
  * takedown's header matching (src/engine/takedown/tables.ts), and the coordinate forms a cell may hold.
  */
-import type { ColumnSpec, TableSpec } from "../takedown/tables";
-import type { Quantity } from "../takedown/units";
-
-function spec(header: string, quantity: Quantity = "none", required = false): ColumnSpec {
-  return { header, required, quantity };
-}
+import { spec, type TableSpec } from "../takedown/tables";
 
 /** Grids: `Grid | X | Y`, a grid line at X (constant x) or at Y (constant y), ft or m. */
 export const GRIDS_SPEC = {

@@ -23,7 +23,13 @@ export interface TableSpec<K extends string> {
   readonly columns: Readonly<Record<K, ColumnSpec>>;
 }
 
-function spec(header: string, quantity: Quantity = "none", required = false): ColumnSpec {
+/**
+ * One expected column, declared as data.
+ * @param header - default header text
+ * @param quantity - what the column holds (its unit is checked against the unit system)
+ * @param required - whether the table needs the column
+ */
+export function spec(header: string, quantity: Quantity = "none", required = false): ColumnSpec {
   return { header, required, quantity };
 }
 
