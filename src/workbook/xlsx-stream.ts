@@ -36,14 +36,7 @@ interface ZipEntry {
 }
 
 /** An entry to write: header fields and its stored bytes in pieces. */
-interface OutEntry {
-  readonly name: string;
-  readonly flags: number;
-  readonly method: number;
-  readonly time: number;
-  readonly date: number;
-  readonly crc: number;
-  readonly size: number;
+interface OutEntry extends Omit<ZipEntry, "data"> {
   readonly chunks: readonly Buffer[];
 }
 
