@@ -96,7 +96,7 @@ export class OfficeWorkbookPort implements WorkbookPort {
   }
 
   /** Two round trips: find what the reference names, then read its address and values. */
-  async readTable(ref: string): Promise<RangeData> {
+  async readTable(ref: string, options: { readonly dates?: boolean } = {}): Promise<RangeData> {
     return Excel.run(async (context) => {
       const wb = context.workbook;
       const typed = splitSheetRef(ref);
@@ -111,12 +111,14 @@ export class OfficeWorkbookPort implements WorkbookPort {
         else if (!sheet.isNullObject) range = sheet.getUsedRange(true);
         else throw new Error(`No table or sheet named "${ref}" in this workbook.`);
       }
-      range.load("address,values,numberFormat");
+      range.load(options.dates === true ? "address,values,numberFormat" : "address,values");
       await context.sync();
       const { sheet, top, left } = parseRangeAddress(range.address);
-      const formats = Array.isArray(range.numberFormat) ? (range.numberFormat as unknown[][]) : [];
+      const values = range.values.map((row) => row.map(fromExcelValue));
+      if (options.dates !== true || !Array.isArray(range.numberFormat)) return { sheet, top, left, values };
+      const formats = range.numberFormat as unknown[][];
       const dates = range.values.map((row, i) => row.map((v, j) => typeof v === "number" && isDateFormat(formats[i]?.[j] as string | undefined)));
-      return { sheet, top, left, values: range.values.map((row) => row.map(fromExcelValue)), ...(dates.some((row) => row.includes(true)) ? { dates } : {}) };
+      return { sheet, top, left, values, ...(dates.some((row) => row.includes(true)) ? { dates } : {}) };
     });
   }
 

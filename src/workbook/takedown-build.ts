@@ -53,7 +53,7 @@ async function readInputs(port: WorkbookPort, options: TakedownOptions): Promise
   const problems: Problem[] = [];
   const read = async (ref: string, role: string): Promise<RangeData | undefined> => {
     try {
-      return await port.readTable(ref);
+      return await port.readTable(ref, { dates: true });
     } catch (e) {
       problems.push(missingTable(ref, role, e));
       return undefined;
