@@ -9,6 +9,7 @@
 import { createNativeWriter } from "../engine/native/takedown-writer";
 import { checkPath, planTakedown, readResults, type SheetPlan, type TakedownModel } from "../engine/takedown";
 import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-loads";
+import { numberOf } from "../engine/takedown/cells";
 import { isFlexural } from "../engine/takedown/model";
 import { a1 } from "../engine/a1";
 import { governingCombination } from "./factored";
@@ -45,11 +46,14 @@ export interface ZoneLoads {
 /** A zone's area loads read from the Zones table's cells (numbers stored as text read as numbers; anything else NaN). */
 export function zoneLoadsOf(model: TakedownModel, table: RangeData): ZoneLoads[] {
   const at = (row: number, col: number): CellValue | undefined => table.values[row - table.top]?.[col - table.left];
-  const numberOf = (v: CellValue | undefined): number => (typeof v === "number" ? v : typeof v === "string" && v.trim() !== "" ? Number(v.trim()) : Number.NaN);
+  const valueOf = (v: CellValue | undefined): number => {
+    const n = numberOf(v);
+    return n.kind === "number" ? n.value : Number.NaN;
+  };
   const zones = [...model.zones.values()].sort((a, b) => a.nameCell.row - b.nameCell.row);
   return zones.map((z) => {
     const loads: Partial<Record<LoadCase, number>> = {};
-    for (const [c, cell] of Object.entries(z.loadCells) as [LoadCase, CellRef][]) loads[c] = numberOf(at(cell.row, cell.col));
+    for (const [c, cell] of Object.entries(z.loadCells) as [LoadCase, CellRef][]) loads[c] = valueOf(at(cell.row, cell.col));
     return { name: z.name, loads, reducible: z.reducible };
   });
 }

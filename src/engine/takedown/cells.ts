@@ -9,7 +9,6 @@ export function isErrorValue(v: CellValue | undefined): boolean {
   return typeof v === "string" && ERROR_TEXT.test(v.trim());
 }
 
-
 /** A cell read as text: trimmed, numbers and booleans spelled out, blank -> "". */
 export function textOf(value: CellValue | undefined): string {
   if (value === null || value === undefined) return "";
