@@ -15,6 +15,18 @@ export function columnLetter(col: number): string {
   return LETTERS[col] ?? lettersOf(col);
 }
 
+/**
+ * The 0-based column of Excel column letters: "A" -> 0, "AA" -> 26 (any case); undefined for
+ * anything but one to three letters.
+ * @param letters - column letters, e.g. "J"
+ */
+export function columnOfLetters(letters: string): number | undefined {
+  if (!/^[A-Za-z]{1,3}$/.test(letters)) return undefined;
+  let n = 0;
+  for (const ch of letters.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
+  return n - 1;
+}
+
 function lettersOf(col: number): string {
   let n = col + 1;
   let s = "";

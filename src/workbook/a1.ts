@@ -2,16 +2,15 @@
  * A1-style address helpers (0-based rows and columns in, Excel letters out). Writing addresses is
  * the engine's (src/engine/a1.ts); parsing them, which throws on bad text, stays here.
  */
-import { a1, a1Absolute } from "../engine/a1";
+import { a1, a1Absolute, columnOfLetters } from "../engine/a1";
 
 export { columnLetter, quoteSheet as sheetRef } from "../engine/a1";
 
 /** "AA" -> 26. Throws on anything that is not a column of letters. */
 export function columnIndex(letters: string): number {
-  if (!/^[A-Za-z]{1,3}$/.test(letters)) throw new Error(`not a column: ${letters}`);
-  let n = 0;
-  for (const ch of letters.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
-  return n - 1;
+  const col = columnOfLetters(letters);
+  if (col === undefined) throw new Error(`not a column: ${letters}`);
+  return col;
 }
 
 /** (0, 0) -> "A1"; absolute gives "$A$1". */

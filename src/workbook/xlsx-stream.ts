@@ -20,7 +20,7 @@
  */
 import { closeSync, openSync, writeSync } from "node:fs";
 import { constants, crc32, deflateRawSync, inflateRawSync } from "node:zlib";
-import { cellAddress } from "./a1";
+import { columnLetter } from "./a1";
 
 /** One entry of a zip file as read: its header fields and its compressed bytes. */
 interface ZipEntry {
@@ -244,12 +244,6 @@ export interface GeneratedSheet {
   rows(): Iterable<{ readonly row: number; readonly cells: Iterable<{ readonly col: number; readonly cell: GeneratedCell }> }>;
 }
 
-/** Column letters, worked out once per column. */
-const columnLetters: string[] = [];
-function columnOf(col: number): string {
-  return (columnLetters[col] ??= cellAddress(0, col).replace(/\d+$/, ""));
-}
-
 /** `<v>` text of a number: the shortest text that reads back as the same double. */
 function numberText(x: number): string {
   return String(x);
@@ -292,7 +286,7 @@ function sheetEntry(path: string, sheet: GeneratedSheet): OutEntry {
   for (const { row, cells } of sheet.rows()) {
     const r = String(row + 1);
     let text = "";
-    for (const { col, cell } of cells) text += cellXml(columnOf(col) + r, cell);
+    for (const { col, cell } of cells) text += cellXml(columnLetter(col) + r, cell);
     if (text !== "") out.add(`<row r="${r}">${text}</row>`);
   }
   out.add("</sheetData></worksheet>");

@@ -5,6 +5,7 @@
  * references (a header, `Group/Header` or a column letter), and the check of each column's unit
  * against the chosen unit system. Two columns that fit one reference are a problem, never a pick.
  */
+import { columnOfLetters } from "../a1";
 import { a1, columnLetter } from "./a1";
 import { isKnownUnit, unitFits, UNIT_NAMES, type Quantity } from "./units";
 import type { CellRef, CellValue, Problem, TableData, UnitSystem } from "./types";
@@ -271,10 +272,8 @@ function headerRowAt(data: TableData, h: number): HeaderRow {
  */
 function letterColumn(ref: string): { readonly col: number; readonly explicit: boolean } | undefined {
   const m = /^(column\s+)?([A-Za-z]{1,3})$/i.exec(ref.trim());
-  if (!m) return undefined;
-  let n = 0;
-  for (const ch of m[2]!.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
-  return { col: n - 1, explicit: m[1] !== undefined };
+  const col = m ? columnOfLetters(m[2]!) : undefined;
+  return col === undefined ? undefined : { col, explicit: m![1] !== undefined };
 }
 
 /**
