@@ -14,6 +14,7 @@ import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
 import { readInputWorkbook } from "./shared";
 import { unitFits } from "../engine/takedown/units";
 import { HEADER_SEARCH_ROWS } from "../engine/takedown/tables";
+import { MATCHING_TABLES, overMatching, readSavedMatching, SETTINGS_SHEET, writeSavedMatching, type SavedMatching } from "../workbook/saved-matching";
 
 /** What a takedown run needs besides the files. */
 export interface TakedownRun {
@@ -31,6 +32,8 @@ export interface TakedownRun {
   readonly replace?: boolean;
   /** Hand-off version: classic spreadsheet functions only. */
   readonly native?: boolean;
+  /** Write the matching used (tables, columns, header rows, units) on the settings sheet of the output. */
+  readonly saveMapping?: boolean;
 }
 
 /** The result of a run, with the workbook, the port it was built in and the options it was built with. */
@@ -41,6 +44,8 @@ export interface TakedownFileResult {
   readonly options: TakedownOptions;
   /** The unit system the table headers show, when they show one. */
   readonly headerUnits?: UnitSystem;
+  /** The workbook's saved matching (settings sheet), when it has one. */
+  readonly saved?: SavedMatching;
 }
 
 /**
@@ -245,30 +250,53 @@ function tableName(wb: XlsxWorkbook, given: string | undefined, fallback: string
 export async function takedownOfFile(input: string, run: TakedownRun): Promise<TakedownFileResult> {
   const workbook = await readInputWorkbook(input);
   const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names, dates: dateCells(workbook) });
-  const zones = tableName(workbook, run.zones, "Zones");
-  const members = tableName(workbook, run.members, "Members");
+  const read = await readSavedMatching(port);
+  if (read !== null && "error" in read) throw new Error(`${input}: ${read.error}`);
+  const saved = read?.matching;
+  const used = overMatching(saved ?? {}, givenMatching(run));
+  const zones = tableName(workbook, used.tables?.zones, "Zones");
+  const members = tableName(workbook, used.tables?.members, "Members");
   if (zones === undefined || members === undefined) {
     throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
   }
   const tooLarge = takedownMemoryProblem(await tableRowCount(port, members));
   if (tooLarge !== undefined) throw new Error(`${input}: ${tooLarge}`);
-  const loads = tableName(workbook, run.loads, "Loads");
-  const bearings = tableName(workbook, run.bearings, "Bearings");
+  const loads = tableName(workbook, used.tables?.loads, "Loads");
+  const bearings = tableName(workbook, used.tables?.bearings, "Bearings");
   const headerUnits = unitsShownByHeaders(workbook, [zones, members, ...(loads !== undefined ? [loads] : [])]);
+  const units = used.units ?? headerUnits ?? "US";
   const options: TakedownOptions = {
     zones,
     members,
     ...(loads !== undefined ? { loads } : {}),
     ...(bearings !== undefined ? { bearings } : {}),
-    units: run.units ?? headerUnits ?? "US",
-    ...(run.mapping ? { mapping: run.mapping } : {}),
-    ...(run.headerRows ? { headerRows: run.headerRows } : {}),
+    units,
+    ...(used.mapping ? { mapping: used.mapping } : {}),
+    ...(used.headerRows ? { headerRows: used.headerRows } : {}),
     ...(run.sheet ? { sheetName: run.sheet } : {}),
     replaceForeign: run.replace === true,
     ...(run.native ? { native: true } : {}),
   };
+  if (run.saveMapping) {
+    if ((run.sheet ?? "").toLowerCase() === SETTINGS_SHEET.toLowerCase()) throw new Error(`--sheet "${run.sheet}" is the settings sheet's name; choose another.`);
+    // Queued on the port and written by the build's own flush (one engine rebuild, not two).
+    await writeSavedMatching(port, { ...used, units, tables: { zones, members, ...(loads !== undefined ? { loads } : {}), ...(bearings !== undefined ? { bearings } : {}) } }, false);
+  }
   const result = await buildTakedown(port, options);
-  return { result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}) };
+  return { result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}), ...(saved !== undefined ? { saved } : {}) };
+}
+
+/** What the command line gives of a matching: tables named, `--map` entries, `--header-row`, `--units`. */
+function givenMatching(run: TakedownRun): SavedMatching {
+  const tables: Partial<Record<(typeof MATCHING_TABLES)[number], string>> = {};
+  for (const t of MATCHING_TABLES) if (run[t] !== undefined) tables[t] = run[t]!;
+  const mapping = Object.fromEntries(MATCHING_TABLES.filter((t) => Object.keys(run.mapping?.[t] ?? {}).length > 0).map((t) => [t, run.mapping![t]!]));
+  return {
+    ...(run.units !== undefined ? { units: run.units } : {}),
+    tables,
+    ...(run.headerRows !== undefined ? { headerRows: run.headerRows } : {}),
+    mapping,
+  };
 }
 
 /**

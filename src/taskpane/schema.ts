@@ -4,7 +4,9 @@
  * columns and the header matching are the takedown engine's (src/engine/takedown/tables.ts);
  * this module only adds the words shown in the pane.
  */
-import { LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC, type TableSpec } from "../engine/takedown/tables";
+import { foldHeader, LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC, type TableSpec } from "../engine/takedown/tables";
+import { a1, columnLetter } from "../engine/a1";
+import type { TableData } from "../engine/takedown/types";
 import { UNIT_NAMES } from "../engine/takedown/units";
 import type { TableInfo } from "../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../workbook/takedown-api";
@@ -131,4 +133,113 @@ export function detectRoles(tables: readonly TableInfo[], mapping: ColumnMapping
     }
   }
   return out;
+}
+
+/** A header cell of the header row, as the column step offers it. */
+export interface HeaderCell {
+  /** Index of the column within the table as read. */
+  readonly col: number;
+  /** A1 address of the header cell on its sheet ("H5"). */
+  readonly address: string;
+  readonly text: string;
+  /** The group title over it (row above the headers), "" when none. */
+  readonly group: string;
+  /**
+   * The reference that names exactly this column, as saved in the matching: its whole header
+   * when no other column has it, else Group/Header, else its column letter.
+   */
+  readonly ref: string;
+}
+
+/** How one needed column is read: taken from one header cell, fitting several, or absent. */
+export type ColumnState = "ambiguous" | "missing" | "found" | "absent";
+
+/** One expected column in the column step, with the cell it is taken from. */
+export interface ColumnReport extends ColumnView {
+  readonly state: ColumnState;
+  /** found: the one cell; ambiguous: every candidate cell; otherwise none. */
+  readonly cells: readonly HeaderCell[];
+  /** Why it is ambiguous or missing, in plain words with the cells. */
+  readonly note?: string;
+}
+
+/** A chosen table's columns as the column step shows them. */
+export interface TableReport {
+  /** 1-based sheet row of the header row used. */
+  readonly headerRow: number;
+  /** Ambiguous columns first, then missing ones, then found, then optional ones not present. */
+  readonly columns: readonly ColumnReport[];
+  /** Every non-blank header cell, to pick from. */
+  readonly options: readonly HeaderCell[];
+}
+
+const STATE_ORDER: Readonly<Record<ColumnState, number>> = { ambiguous: 0, missing: 1, found: 2, absent: 3 };
+
+/**
+ * The column step of one chosen table, by the engine's own matching (header row found or given,
+ * group row, units row): for each expected column the header cell it is taken from (address
+ * included), the candidates when several fit (never one picked), or that it is missing.
+ * @param role - which table
+ * @param data - the table as read (title block and all)
+ * @param mapping - the user's references
+ * @param headerRow - 1-based sheet row of the header row, when given
+ */
+export function reportColumns(role: TableRole, data: TableData, mapping: ColumnMapping, headerRow?: number): TableReport {
+  const spec = SPECS[role];
+  const match = matchTable(spec, data, "US", mapping[role], headerRow);
+  const h = match.table.headerRow;
+  const sheetRow = data.top + h + 1;
+  const headerCells = data.values[h] ?? [];
+  const above = h > 0 ? (data.values[h - 1] ?? []) : [];
+  const groupOf = (col: number): string => {
+    for (let c = col; c >= 0; c--) if (foldHeader(above[c]) !== "") return String(above[c]).trim();
+    return "";
+  };
+  // A reference resolves as the engine resolves it: tried on the header rows alone, for the first column.
+  const slim: TableData = { ...data, values: data.values.slice(0, h + 2) };
+  const probe = Object.values<{ header: string }>(spec.columns)[0]!.header;
+  const names = (ref: string, col: number): boolean => matchTable(spec, slim, "US", { [probe]: ref }, sheetRow).table.columns[Object.keys(spec.columns)[0] as keyof typeof spec.columns] === col;
+  const options: HeaderCell[] = [];
+  headerCells.forEach((v, col) => {
+    const text = v === null ? "" : String(v).trim();
+    if (text === "") return;
+    const group = groupOf(col);
+    const letter = columnLetter(data.left + col);
+    const refs = [text, ...(group !== "" ? [`${group}/${text}`] : []), letter, `column ${letter}`];
+    const ref = refs.find((r) => names(r, col)) ?? `column ${letter}`;
+    options.push({ col, address: a1(data.top + h, data.left + col), text, group, ref });
+  });
+  const cellOf = (col: number): HeaderCell =>
+    options.find((o) => o.col === col) ?? { col, address: a1(data.top + h, data.left + col), text: "", group: groupOf(col), ref: `column ${columnLetter(data.left + col)}` };
+  const views = ROLE_COLUMNS[role];
+  const keys = Object.keys(spec.columns);
+  const shown = (c: HeaderCell): string => `${c.address} "${c.text}"${c.group !== "" ? ` (under "${c.group}")` : ""}`;
+  const columns: ColumnReport[] = views.map((view, i) => {
+    const key = keys[i]!;
+    const found = (match.table.columns as Record<string, number | undefined>)[key];
+    const several = (match.ambiguous as Record<string, readonly number[] | undefined>)[key];
+    const mapped = mapping[role]?.[view.header];
+    if (several !== undefined && several.length > 1) {
+      const cells = several.map(cellOf);
+      return { ...view, state: "ambiguous", cells, note: `${cells.map(shown).join(" and ")} both fit; none is taken. Pick the one that holds ${view.header}.` };
+    }
+    if (several !== undefined) {
+      const cell = cellOf(several[0]!);
+      const owner = keys.findIndex((k) => (match.table.columns as Record<string, number | undefined>)[k] === several[0]);
+      return { ...view, state: "ambiguous", cells: [cell], note: `${shown(cell)} is already taken for ${owner >= 0 ? views[owner]!.header : "another column"}; pick the column that holds ${view.header}.` };
+    }
+    if (found !== undefined) return { ...view, state: "found", cells: [cellOf(found)] };
+    if (view.required || (mapped !== undefined && mapped.trim() !== "")) {
+      const note = mapped ? `No column fits "${mapped}" in header row ${sheetRow}; pick the column that holds it.` : `Needed for a build: no header "${view.header}" in row ${sheetRow}; pick the column that holds it.`;
+      return { ...view, state: "missing", cells: [], note };
+    }
+    return { ...view, state: "absent", cells: [] };
+  });
+  columns.sort((a, b) => STATE_ORDER[a.state] - STATE_ORDER[b.state]);
+  return { headerRow: sheetRow, columns, options };
+}
+
+/** Columns of a report that stop a build: ambiguous ones, and missing ones (required, or mapped to no column). */
+export function blockingColumns(report: TableReport): string[] {
+  return report.columns.filter((c) => c.state === "ambiguous" || c.state === "missing").map((c) => c.header);
 }

@@ -5,8 +5,9 @@
  * Excel and against the in-memory workbook of the demo page.
  */
 import type { CellSelection, PictureInput, TableInfo, WorkbookPort } from "../workbook/port";
-import type { BuildTakedown, ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../workbook/takedown-api";
-import { detectRoles, type TableRole } from "./schema";
+import type { BuildTakedown, ColumnMapping, HeaderRows, Problem, TakedownBuildResult, UnitSystem } from "../workbook/takedown-api";
+import { readSavedMatching, SETTINGS_SHEET, writeSavedMatching } from "../workbook/saved-matching";
+import { detectRoles, reportColumns, type TableReport, type TableRole } from "./schema";
 
 /** Keys of the workbook settings the pane keeps. */
 export const SETTING_KEYS = {
@@ -26,6 +27,14 @@ export interface PaneSettings {
   readonly tables: TableChoice | null;
   readonly mapping: ColumnMapping;
   readonly units: UnitSystem;
+  /** Header rows (1-based sheet rows) of a saved matching, kept as they are. */
+  readonly headerRows?: HeaderRows;
+  /** The Bearings table of a saved matching, kept as it is (the pane has no list for it). */
+  readonly bearings?: string;
+  /** Where the settings came from: the settings sheet, or the pane's own workbook settings. */
+  readonly source?: "sheet" | "pane";
+  /** Why the settings sheet could not be read (then the pane's own settings are used). */
+  readonly problem?: string;
 }
 
 /** The tables of the workbook and the choice the pane starts from. */
@@ -85,8 +94,26 @@ export class PaneSession {
     readonly sheetName: string = DEFAULT_SHEET,
   ) {}
 
-  /** Saved choices, mapping and unit system (defaults when none were saved). */
+  /**
+   * The saved matching: the settings sheet when the workbook has one (the command line reads the
+   * same sheet), else the pane's own workbook settings (kept as the user changes things, and by
+   * workbooks saved before the settings sheet), else defaults.
+   */
   async loadSettings(): Promise<PaneSettings> {
+    const sheet = await readSavedMatching(this.port);
+    if (sheet !== null && "matching" in sheet) {
+      const m = sheet.matching;
+      const t = m.tables ?? {};
+      const tables = t.zones !== undefined || t.members !== undefined || t.loads !== undefined ? { zones: t.zones ?? "", members: t.members ?? "", loads: t.loads ?? "" } : null;
+      return {
+        tables,
+        mapping: m.mapping ?? {},
+        units: m.units ?? "US",
+        ...(m.headerRows !== undefined ? { headerRows: m.headerRows } : {}),
+        ...(t.bearings !== undefined ? { bearings: t.bearings } : {}),
+        source: "sheet",
+      };
+    }
     const [tables, mapping, units] = await Promise.all([
       this.port.getSetting(SETTING_KEYS.tables),
       this.port.getSetting(SETTING_KEYS.mapping),
@@ -96,20 +123,48 @@ export class PaneSession {
       tables: parseJson<TableChoice>(tables),
       mapping: parseJson<ColumnMapping>(mapping) ?? {},
       units: units === "SI" ? "SI" : "US",
+      ...(sheet !== null && "error" in sheet ? { problem: sheet.error } : {}),
     };
   }
 
-  /** Remember the choices in the workbook (they travel with the file). */
+  /** Remember the choices in the pane's workbook settings as the user makes them (not the saved matching). */
   async saveSettings(settings: PaneSettings): Promise<void> {
     await this.port.setSetting(SETTING_KEYS.tables, JSON.stringify(settings.tables ?? {}));
     await this.port.setSetting(SETTING_KEYS.mapping, JSON.stringify(settings.mapping));
     await this.port.setSetting(SETTING_KEYS.units, settings.units);
   }
 
+  /**
+   * Save the matching the user confirmed on the settings sheet (tables, columns, header rows,
+   * units), where the command line reads it too. Writes only that sheet; rebuilds nothing.
+   */
+  async saveMatching(settings: PaneSettings): Promise<void> {
+    const t = settings.tables ?? { zones: "", members: "", loads: "" };
+    const tables = Object.fromEntries(
+      Object.entries({ zones: t.zones, members: t.members, loads: t.loads, bearings: settings.bearings ?? "" }).filter(([, v]) => v !== ""),
+    );
+    await writeSavedMatching(this.port, {
+      units: settings.units,
+      tables,
+      ...(settings.headerRows !== undefined ? { headerRows: settings.headerRows } : {}),
+      mapping: settings.mapping,
+    });
+    await this.saveSettings(settings);
+  }
+
+  /**
+   * The column step of a chosen table: each needed column with the header cell it is taken from,
+   * ambiguous and missing ones first (read as the build reads it: title block, group and units rows).
+   */
+  async columnReport(role: TableRole, table: string, mapping: ColumnMapping, headerRow?: number): Promise<TableReport> {
+    const data = await this.port.readTable(table);
+    return reportColumns(role, data, mapping, headerRow);
+  }
+
   /** List the workbook's tables (the add-in's own sheet left out) and pick one for each role. */
   async scan(saved: TableChoice | null, mapping: ColumnMapping): Promise<ScanResult> {
     const all = await this.port.listTables();
-    const tables = all.filter((t) => t.sheet !== this.sheetName);
+    const tables = all.filter((t) => t.sheet !== this.sheetName && t.sheet !== SETTINGS_SHEET);
     const names = new Set(tables.map((t) => t.name));
     const found = detectRoles(tables, mapping);
     const choice: Record<TableRole, string> = { zones: "", members: "", loads: "" };
@@ -147,8 +202,10 @@ export class PaneSession {
         zones: choice.zones,
         members: choice.members,
         ...(choice.loads ? { loads: choice.loads } : {}),
+        ...(settings.bearings ? { bearings: settings.bearings } : {}),
         units: settings.units,
         mapping: settings.mapping,
+        ...(settings.headerRows ? { headerRows: settings.headerRows } : {}),
         sheetName: this.sheetName,
         replaceForeign,
         // hand-off version: classic spreadsheet functions only (src/engine/native)

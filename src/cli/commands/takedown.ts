@@ -17,13 +17,14 @@ import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type Cl
 import { fixedDecimals, formatDifference, formatQuantity, type Quantity } from "../../drawings/format";
 import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
 import type { DemoPart } from "./demo";
+import { SETTINGS_SHEET } from "../../workbook/saved-matching";
 
 export { parseMappings, takedownOfFile, type TakedownFileResult, type TakedownRun } from "../takedown-input";
 
 const USAGE = `Usage: loadpath takedown <in.xlsx> [-o <out.xlsx>] [--json <result.json>] [--native]
                          [--zones <name>] [--members <name>] [--loads <name>]
                          [--map <table>.<Column>=<your header> ...] [--header-row [<table>=]<row>]
-                         [--units US|SI] [--sheet <name>] [--replace]
+                         [--units US|SI] [--sheet <name>] [--replace] [--save-mapping]
 
 Builds the gravity load takedown of the workbook's member tables: every member in takedown order
 with its loads, reactions, shear and moment, tributary area and live load reduction; every
@@ -37,6 +38,10 @@ a load balance. Everything is written as live formulas on a generated sheet (def
   --native       hand-off version: classic spreadsheet functions only, so the sheet recalculates
                  without the add-in (Excel, LibreOffice Calc, Gnumeric); see also loadpath export
 ${TABLE_OPTIONS_USAGE}
+  --save-mapping write the matching used (tables, --map columns, header rows, units) on the
+                 sheet "${SETTINGS_SHEET}" of the output workbook (needs -o), so later runs
+                 and the pane read it without the options; a saved matching is always read,
+                 and --map, --header-row, --units and the table options override it
 
 Problems are listed on stderr as Sheet!A1: message. Exit status: 0 built without problems,
 1 problems found (what could be built is still written), 2 usage or file errors (nothing
@@ -117,8 +122,13 @@ function jsonOf(result: TakedownBuildResult, units: UnitSystem): TakedownJson {
 export async function takedownFile(input: string, output: string | undefined, jsonPath: string | undefined, run: TakedownRun, io: CliIO): Promise<number> {
   const outputs = [output !== undefined ? { option: "-o", path: output } : undefined, jsonPath !== undefined ? { option: "--json", path: jsonPath } : undefined];
   if (outputsRefused("takedown", [input], outputs, io)) return EXIT.usage;
+  if (run.saveMapping && output === undefined) {
+    io.err(`loadpath takedown: --save-mapping writes the matching into the output workbook; give -o <out.xlsx>.`);
+    return EXIT.usage;
+  }
   const file = await takedownOfFile(input, run);
   const { result, workbook, port, options } = file;
+  if (file.saved !== undefined) io.out(`Matching read from the sheet "${SETTINGS_SHEET}" (options given here override it).`);
   for (const p of result.problems) io.err(describeTakedownProblem(p));
   const hint = result.problems.length > 0 ? unitsHint(file) : undefined;
   if (hint !== undefined) io.err(`loadpath takedown: ${hint}`);
@@ -144,6 +154,7 @@ export async function takedownFile(input: string, output: string | undefined, js
   if (output !== undefined && result.ok) {
     await writeXlsx(workbook, resolve(output), port);
     io.out(`Workbook written to ${output}.`);
+    if (run.saveMapping) io.out(`Matching saved on its sheet "${SETTINGS_SHEET}".`);
   } else if (output !== undefined) io.out(`No workbook written to ${output}: nothing could be built.`);
   if (jsonPath !== undefined) {
     await writeTextAtomically(resolve(jsonPath), JSON.stringify(jsonOf(result, options.units), null, 2) + "\n");
@@ -166,6 +177,7 @@ const takedown: Command = {
         json: { type: "string" },
         ...tableOptions(),
         native: { type: "boolean" },
+        "save-mapping": { type: "boolean" },
       },
       io,
     );
@@ -178,7 +190,7 @@ const takedown: Command = {
       return EXIT.usage;
     }
     const v = parsed.values;
-    const run: TakedownRun = { ...checked.run, native: v.native === true };
+    const run: TakedownRun = { ...checked.run, native: v.native === true, ...(v["save-mapping"] === true ? { saveMapping: true } : {}) };
     return usageOnThrow("takedown", io, () => takedownFile(input, v.output, v.json, run, io));
   },
 };

@@ -198,6 +198,12 @@ function isBlankCell(c: CellValue | undefined): boolean {
 export interface MatchResult<K extends string> {
   readonly table: MatchedTable<K>;
   readonly problems: readonly Problem[];
+  /**
+   * Needed columns left unmatched because their reference fits several columns (indices into
+   * `data.values` rows, every candidate), or because their one column is already taken for
+   * another needed column (that single index).
+   */
+  readonly ambiguous: Readonly<Partial<Record<K, readonly number[]>>>;
 }
 
 /**
@@ -391,7 +397,7 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
     h = headerRow - 1 - data.top;
     if (!Number.isInteger(headerRow) || h < 0 || h >= data.values.length) {
       problems.push(problemAt(data, 0, 0, "missingColumn", `The ${tableSpec.title} table's header row ${headerRow} is outside the table (rows ${data.top + 1} to ${data.top + data.values.length}).`));
-      return { table: { title: tableSpec.title, data, columns: {} as Partial<Record<K, number>>, rows: [], headerRow: 0 }, problems };
+      return { table: { title: tableSpec.title, data, columns: {} as Partial<Record<K, number>>, rows: [], headerRow: 0 }, problems, ambiguous: {} as Partial<Record<K, readonly number[]>> };
     }
   } else {
     h = findHeaderRow(tableSpec, data, wanted);
@@ -399,6 +405,7 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
   const row = headerRowAt(data, h);
   const unitRow = unitsRow(data, h);
   const columns: Partial<Record<K, number>> = {};
+  const ambiguous: Partial<Record<K, readonly number[]>> = {};
   const takenBy = new Map<number, K>();
   for (const [key, w] of wanted) {
     const found = find(data, row, w);
@@ -414,6 +421,7 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
       continue;
     }
     if ("several" in found) {
+      ambiguous[key] = found.several;
       const cells = found.several.map((c) => cellName(data, h, c)).join(" and ");
       problems.push(
         problemAt(
@@ -429,6 +437,7 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
     const col = found.col;
     const other = takenBy.get(col);
     if (other !== undefined) {
+      ambiguous[key] = [col];
       problems.push(
         problemAt(data, h, col, "ambiguousColumn", `The ${tableSpec.title} table's column ${cellName(data, h, col)} is taken for both ${tableSpec.columns[other].header} and ${columnSpec.header}; map each to its own column (${mapHint}).`),
       );
@@ -459,5 +468,5 @@ export function matchTable<K extends string>(tableSpec: TableSpec<K>, data: Tabl
   const rows: number[] = [];
   for (let i = first; i < data.values.length; i++) if (!isBlankRow(data.values[i]!)) rows.push(i);
   problems.push(...headerless(tableSpec.title, data, h, rows));
-  return { table: { title: tableSpec.title, data, columns, rows, headerRow: h }, problems };
+  return { table: { title: tableSpec.title, data, columns, rows, headerRow: h }, problems, ambiguous };
 }

@@ -18,8 +18,9 @@ import {
   makeStyles,
   tokens,
 } from "@fluentui/react-components";
-import type { ColumnMapping, Problem, TakedownBuildResult, UnitSystem } from "../../workbook/takedown-api";
-import { missingColumns, ROLE_TITLES, type TableRole } from "../schema";
+import type { ColumnMapping, HeaderRows, Problem, TakedownBuildResult, UnitSystem } from "../../workbook/takedown-api";
+import { SETTINGS_SHEET } from "../../workbook/saved-matching";
+import { blockingColumns, ROLES, ROLE_TITLES, type TableReport, type TableRole } from "../schema";
 import type { PaneSession, ScanResult, TableChoice } from "../session";
 import { DiagramsView } from "./Diagrams";
 import { ColumnMatcher, TablePicker, UnitsPicker } from "./Inputs";
@@ -91,6 +92,11 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
   const [error, setError] = React.useState<string | null>(null);
   const [askReplace, setAskReplace] = React.useState<string | null>(null);
   const [selected, setSelected] = React.useState<string>("");
+  const [headerRows, setHeaderRows] = React.useState<HeaderRows | undefined>(undefined);
+  const [bearings, setBearings] = React.useState<string | undefined>(undefined);
+  const [reports, setReports] = React.useState<Partial<Record<TableRole, TableReport>>>({});
+  // "saved": the matching shown is the one on the settings sheet; "changed": not saved since changed.
+  const [matchingState, setMatchingState] = React.useState<"none" | "saved" | "changed" | "saving">("none");
   const busy = progress !== null;
 
   const refresh = React.useCallback(async () => {
@@ -99,6 +105,10 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
       const saved = await session.loadSettings();
       setMapping(saved.mapping);
       setUnits(saved.units);
+      setHeaderRows(saved.headerRows);
+      setBearings(saved.bearings);
+      setMatchingState(saved.source === "sheet" ? "saved" : "none");
+      if (saved.problem !== undefined) setError(`The saved matching could not be read: ${saved.problem}`);
       const found = await session.scan(saved.tables, saved.mapping);
       setScan(found);
       setChoice(found.choice);
@@ -116,6 +126,35 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     if (scan !== null && typeof performance !== "undefined" && performance.getEntriesByName("loadpath-pane-ready").length === 0) performance.mark("loadpath-pane-ready");
   }, [scan]);
 
+  React.useEffect(() => {
+    // The column step of each chosen table, read as the build reads it.
+    if (scan === null) return;
+    let current = true;
+    const roles = ROLES.filter((r) => choice[r] !== "");
+    Promise.all(roles.map(async (r) => [r, await session.columnReport(r, choice[r], mapping, headerRows?.[r])] as const))
+      .then((pairs) => {
+        if (current) setReports(Object.fromEntries(pairs));
+      })
+      .catch((e: unknown) => {
+        if (current) setError(`Could not read the tables: ${e instanceof Error ? e.message : String(e)}`);
+      });
+    return () => {
+      current = false;
+    };
+  }, [session, scan, choice, mapping, headerRows]);
+
+  const saveMatching = async (): Promise<void> => {
+    setError(null);
+    setMatchingState("saving");
+    try {
+      await session.saveMatching({ tables: choice, mapping, units, ...(headerRows ? { headerRows } : {}), ...(bearings ? { bearings } : {}) });
+      setMatchingState("saved");
+    } catch (e) {
+      setMatchingState("changed");
+      setError(`Could not save the matching: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  };
+
   const remember = (next: { choice?: TableChoice; mapping?: ColumnMapping; units?: UnitSystem }): void => {
     const tables = next.choice ?? choice;
     const m = next.mapping ?? mapping;
@@ -123,6 +162,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     if (next.choice) setChoice(next.choice);
     if (next.mapping) setMapping(next.mapping);
     if (next.units) setUnits(next.units);
+    setMatchingState("changed");
     session.saveSettings({ tables, mapping: m, units: u }).catch((e: unknown) => setError(`Could not save the settings: ${e instanceof Error ? e.message : String(e)}`));
   };
 
@@ -132,7 +172,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     setSelected("");
     setProgress({ fraction: 0, message: "Reading the tables…" });
     try {
-      const outcome = await session.run(choice, { mapping, units, native }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
+      const outcome = await session.run(choice, { mapping, units, native, ...(headerRows ? { headerRows } : {}), ...(bearings ? { bearings } : {}) }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
       if (outcome.kind === "askReplace") setAskReplace(outcome.sheet);
       else {
         setResult(outcome.result);
@@ -150,9 +190,9 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     session.show(p).catch((e: unknown) => setError(`Could not select ${p.sheet}!${p.cell}: ${e instanceof Error ? e.message : String(e)}`));
   };
 
-  const lacking = (Object.keys(choice) as TableRole[]).flatMap((role) => {
-    const table = scan?.tables.find((t) => t.name === choice[role]);
-    return table ? missingColumns(role, table.headers, mapping).map((c) => `${ROLE_TITLES[role]}: ${c}`) : [];
+  const lacking = ROLES.flatMap((role) => {
+    const report = choice[role] !== "" ? reports[role] : undefined;
+    return report ? blockingColumns(report).map((c) => `${ROLE_TITLES[role]}: ${c}`) : [];
   });
   const ready = choice.zones !== "" && choice.members !== "" && lacking.length === 0;
   const problems = result?.problems ?? [];
@@ -185,14 +225,28 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
             </section>
             <section className={styles.section} aria-labelledby="lp-columns">
               <h2 id="lp-columns" className={styles.h2}>2. Columns</h2>
-              <ColumnMatcher tables={scan.tables} choice={choice} mapping={mapping} units={units} disabled={busy} onChange={(m) => remember({ mapping: m })} />
+              <ColumnMatcher choice={choice} reports={reports} mapping={mapping} units={units} disabled={busy} onChange={(m) => remember({ mapping: m })} />
             </section>
             <section className={styles.section} aria-labelledby="lp-units">
               <h2 id="lp-units" className={styles.h2}>3. Units</h2>
               <UnitsPicker units={units} disabled={busy} onChange={(u) => remember({ units: u })} />
             </section>
+            <section className={styles.section} aria-labelledby="lp-save">
+              <h2 id="lp-save" className={styles.h2}>4. Save the matching</h2>
+              <div className={styles.buildRow}>
+                <Button appearance="secondary" disabled={busy || matchingState === "saving" || choice.members === ""} onClick={() => void saveMatching()} data-testid="save-matching">
+                  Save the matching in the workbook
+                </Button>
+                <Text size={200} className={styles.status} data-testid="matching-state">
+                  {matchingState === "saved" ? `Saved on the sheet “${SETTINGS_SHEET}”.` : matchingState === "changed" ? "Changed since it was saved." : matchingState === "saving" ? "Saving…" : "Not saved yet."}
+                </Text>
+              </div>
+              <Text size={200} role="note">
+                The tables, columns and units are kept on the sheet “{SETTINGS_SHEET}”, which the loadpath command reads too. Saving or changing the matching rebuilds nothing by itself: build again to update the takedown.
+              </Text>
+            </section>
             <section className={styles.section} aria-labelledby="lp-build">
-              <h2 id="lp-build" className={styles.h2}>4. Build</h2>
+              <h2 id="lp-build" className={styles.h2}>5. Build</h2>
               <div className={styles.buildRow}>
                 <Button appearance="primary" disabled={busy || !ready} onClick={() => void build(false)} data-testid="build">
                   {result?.ok && result.sheet ? "Rebuild takedown" : "Build takedown"}
@@ -248,7 +302,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
             ) : null}
             {result?.ok && result.built && result.json ? (
               <section className={styles.section} aria-labelledby="lp-diagrams">
-                <h2 id="lp-diagrams" className={styles.h2}>5. Member diagrams</h2>
+                <h2 id="lp-diagrams" className={styles.h2}>6. Member diagrams</h2>
                 <DiagramsView session={session} built={result.built} json={result.json} />
               </section>
             ) : null}

@@ -3,7 +3,7 @@ import * as React from "react";
 import { Accordion, AccordionHeader, AccordionItem, AccordionPanel, Field, Radio, RadioGroup, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
 import type { TableInfo } from "../../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../../workbook/takedown-api";
-import { ROLES, ROLE_COLUMNS, ROLE_TITLES, matchColumns, missingColumns, type TableRole } from "../schema";
+import { blockingColumns, ROLES, ROLE_TITLES, type HeaderCell, type TableReport, type TableRole } from "../schema";
 import type { TableChoice } from "../session";
 
 const useStyles = makeStyles({
@@ -62,26 +62,35 @@ export function TablePicker(props: TablePickerProps): React.JSX.Element {
 
 /** Props of {@link ColumnMatcher}. */
 export interface ColumnMatcherProps {
-  readonly tables: readonly TableInfo[];
   readonly choice: TableChoice;
+  /** The column step of each chosen table (undefined while it is read). */
+  readonly reports: Readonly<Partial<Record<TableRole, TableReport>>>;
   readonly mapping: ColumnMapping;
   readonly units: UnitSystem;
   readonly disabled: boolean;
   readonly onChange: (mapping: ColumnMapping) => void;
 }
 
-/** For each chosen table, each expected column with its units and the user's column that carries it. */
+function cellLabel(c: HeaderCell): string {
+  return `${c.address}: ${c.text}${c.group !== "" ? ` (under ${c.group})` : ""}`;
+}
+
+/**
+ * For each chosen table, each expected column with its units and the header cell it is taken
+ * from (address included); ambiguous and missing columns first. An ambiguous column lists its
+ * candidate cells and takes none until the user picks one.
+ */
 export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
   const styles = useStyles();
   const chosen = ROLES.filter((r) => props.choice[r] !== "");
   const openByDefault = chosen.filter((role) => {
-    const t = props.tables.find((x) => x.name === props.choice[role]);
-    return t !== undefined && missingColumns(role, t.headers, props.mapping).length > 0;
+    const r = props.reports[role];
+    return r !== undefined && blockingColumns(r).length > 0;
   });
-  const set = (role: TableRole, header: string, userHeader: string): void => {
+  const set = (role: TableRole, header: string, ref: string): void => {
     const current = { ...(props.mapping[role] ?? {}) };
-    if (userHeader === "") delete current[header];
-    else current[header] = userHeader;
+    if (ref === "") delete current[header];
+    else current[header] = ref;
     props.onChange({ ...props.mapping, [role]: current });
   };
   if (chosen.length === 0) return <Text className={styles.note}>Pick the tables first.</Text>;
@@ -89,42 +98,49 @@ export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
     // Keyed by the chosen tables: a newly chosen table opens with its unmatched columns showing.
     <Accordion key={chosen.map((r) => props.choice[r]).join("|")} multiple collapsible defaultOpenItems={openByDefault}>
       {chosen.map((role) => {
-        const table = props.tables.find((x) => x.name === props.choice[role]);
-        if (!table) return null;
-        const found = matchColumns(role, table.headers, props.mapping);
-        const missing = missingColumns(role, table.headers, props.mapping);
+        const report = props.reports[role];
+        if (!report) return null;
+        const blocking = blockingColumns(report);
+        const ambiguous = report.columns.filter((c) => c.state === "ambiguous").length;
         return (
           <AccordionItem key={role} value={role}>
             <AccordionHeader>
-              {ROLE_TITLES[role]}: {missing.length === 0 ? "all needed columns found" : `${missing.length} needed column${missing.length > 1 ? "s" : ""} to match`}
+              {ROLE_TITLES[role]}: {blocking.length === 0 ? "all needed columns found" : `${blocking.length} column${blocking.length > 1 ? "s" : ""} to match${ambiguous > 0 ? ` (${ambiguous} ambiguous)` : ""}`}
             </AccordionHeader>
             <AccordionPanel>
               <div className={styles.columns}>
-                {ROLE_COLUMNS[role].map((spec) => {
-                  const unit = spec.units ? ` (${spec.units[props.units]})` : "";
-                  const lacking = spec.required && found[spec.header] === null;
+                <Text size={200} className={styles.note}>
+                  Headers read in row {report.headerRow}.
+                </Text>
+                {report.columns.map((col) => {
+                  const unit = col.units ? ` (${col.units[props.units]})` : "";
+                  const taken = col.state === "found" ? col.cells[0] : undefined;
+                  const hint = taken ? `Taken from ${cellLabel(taken)}. ${col.hint}` : col.hint;
+                  const bad = col.state === "ambiguous" || col.state === "missing";
+                  // Candidates first for an ambiguous column, then every other header cell.
+                  const first = col.state === "ambiguous" ? col.cells.map((c) => c.col) : [];
+                  const options = [...report.options.filter((o) => first.includes(o.col)), ...report.options.filter((o) => !first.includes(o.col))];
                   return (
                     <Field
-                      key={spec.header}
-                      label={`${spec.header}${unit}${spec.required ? "" : " – optional"}`}
-                      hint={spec.hint}
-                      validationState={lacking ? "error" : "none"}
-                      validationMessage={lacking ? "Needed for a build: pick the column that holds it." : undefined}
+                      key={col.header}
+                      label={`${col.header}${unit}${col.required ? "" : " – optional"}`}
+                      hint={hint}
+                      validationState={bad ? "error" : "none"}
+                      validationMessage={bad ? col.note : undefined}
                     >
                       <Select
-                        data-column={`${role}:${spec.header}`}
-                        value={found[spec.header] ?? ""}
+                        data-column={`${role}:${col.header}`}
+                        data-state={col.state}
+                        value={taken?.ref ?? ""}
                         disabled={props.disabled}
-                        onChange={(_, data) => set(role, spec.header, data.value)}
+                        onChange={(_, data) => set(role, col.header, data.value)}
                       >
-                        <option value="">Not in this table</option>
-                        {table.headers
-                          .filter((h) => h !== "")
-                          .map((h) => (
-                            <option key={h} value={h}>
-                              {h}
-                            </option>
-                          ))}
+                        <option value="">{col.state === "ambiguous" ? "Several fit: pick one" : "Not in this table"}</option>
+                        {options.map((o) => (
+                          <option key={o.col} value={o.ref}>
+                            {cellLabel(o)}
+                          </option>
+                        ))}
                       </Select>
                     </Field>
                   );
