@@ -167,6 +167,11 @@ describe("one saved matching, read by the pane and the command line", () => {
     const outcome = await fromFile.run(settings.tables!, settings, () => {});
     expect(outcome.kind === "done" && reactionsOf(outcome.result.json!)).toEqual(reactionsOf(paneJson));
 
+    // `loadpath export` rebuilds the takedown it finds by its title with the saved matching.
+    const handoff = await cli("export", out, "-o", join(dir, "handoff.xlsx"));
+    expect(handoff.err).toEqual([]);
+    expect(handoff.status).toBe(0);
+
     // --map wins over the saved entry: "Location" fits two cells, a problem naming both.
     const over = await cli("takedown", out, "--map", "members.End at=Location");
     expect(over.status).toBe(1);

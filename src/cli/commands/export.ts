@@ -17,6 +17,7 @@ import { cellAddress } from "../../workbook/a1";
 import { callsLoadpath } from "../../workbook/headless";
 import { exportSheets, MemoryWorkbookPort } from "../../workbook/memory-port";
 import { GENERATED_MARKER } from "../../workbook/port";
+import { overMatching, readSavedMatching, type SavedMatching } from "../../workbook/saved-matching";
 import { buildTakedown, DEFAULT_TAKEDOWN_SHEET } from "../../workbook/takedown-build";
 import type { Problem, TakedownJson, TakedownOptions, UnitSystem } from "../../workbook/takedown-api";
 import { writeTextAtomically } from "../../workbook/files";
@@ -147,6 +148,20 @@ export function takedownsOf(wb: XlsxWorkbook, units?: UnitSystem): TakedownSpec[
 }
 
 /**
+ * Takedowns with the workbook's saved matching (its settings sheet) under their own options: the
+ * columns and header rows saved are used where the command line gives none.
+ * @param specs - the takedowns to build
+ * @param saved - the saved matching, when the workbook has one
+ */
+function withSavedMatching(specs: TakedownSpec[], saved: SavedMatching | undefined): TakedownSpec[] {
+  if (saved === undefined) return specs;
+  return specs.map((spec) => {
+    const m = overMatching(saved, { ...(spec.options.mapping ? { mapping: spec.options.mapping } : {}), ...(spec.options.headerRows ? { headerRows: spec.options.headerRows } : {}) });
+    return { ...spec, options: { ...spec.options, ...(m.mapping ? { mapping: m.mapping } : {}), ...(m.headerRows ? { headerRows: m.headerRows } : {}) } };
+  });
+}
+
+/**
  * The takedowns of a command line: when it names a table, a mapping or a sheet, one takedown
  * from the tables (each not named: the table or sheet so called), in the units given or shown by
  * the headers, on the sheet given (default "Takedown"); otherwise {@link takedownsOf}.
@@ -244,7 +259,9 @@ export async function exportHandoff(input: string, output: string | undefined, o
     dates: dateCells(wb),
     ...(options.distDir ? { distDir: options.distDir } : {}),
   });
-  const specs = options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units));
+  const saved = await readSavedMatching(port);
+  if (saved !== null && "error" in saved) throw new Error(`${input}: ${saved.error}`);
+  const specs = withSavedMatching(options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units)), saved?.matching);
   const problems: Problem[] = [];
   const hints: string[] = [];
   const takedowns: { sheet: string; helperSheet: string; members: number; json?: TakedownJson }[] = [];
