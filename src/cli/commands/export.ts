@@ -153,8 +153,8 @@ export function takedownsOf(wb: XlsxWorkbook, units?: UnitSystem): TakedownSpec[
  * @param specs - the takedowns to build
  * @param saved - the saved matching, when the workbook has one
  */
-function withSavedMatching(specs: TakedownSpec[], saved: SavedMatching | undefined): TakedownSpec[] {
-  if (saved === undefined) return specs;
+function withSavedMatching(specs: readonly TakedownSpec[], saved: SavedMatching | undefined): TakedownSpec[] {
+  if (saved === undefined) return [...specs];
   return specs.map((spec) => {
     const m = overMatching(saved, { ...(spec.options.mapping ? { mapping: spec.options.mapping } : {}), ...(spec.options.headerRows ? { headerRows: spec.options.headerRows } : {}) });
     return { ...spec, options: { ...spec.options, ...(m.mapping ? { mapping: m.mapping } : {}), ...(m.headerRows ? { headerRows: m.headerRows } : {}) } };

@@ -225,7 +225,22 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
             </section>
             <section className={styles.section} aria-labelledby="lp-columns">
               <h2 id="lp-columns" className={styles.h2}>2. Columns</h2>
-              <ColumnMatcher choice={choice} reports={reports} mapping={mapping} units={units} disabled={busy} onChange={(m) => remember({ mapping: m })} />
+              <ColumnMatcher
+                choice={choice}
+                reports={reports}
+                mapping={mapping}
+                headerRows={headerRows}
+                units={units}
+                disabled={busy}
+                onChange={(m) => remember({ mapping: m })}
+                onHeaderRow={(role, row) => {
+                  const next: Record<string, number> = { ...(headerRows ?? {}) };
+                  if (row === undefined) delete next[role];
+                  else next[role] = row;
+                  setHeaderRows(Object.keys(next).length > 0 ? next : undefined);
+                  setMatchingState("changed");
+                }}
+              />
             </section>
             <section className={styles.section} aria-labelledby="lp-units">
               <h2 id="lp-units" className={styles.h2}>3. Units</h2>

@@ -1,8 +1,8 @@
 /** Choosing the input tables, matching their columns, and the unit system. */
 import * as React from "react";
-import { Accordion, AccordionHeader, AccordionItem, AccordionPanel, Field, Radio, RadioGroup, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
+import { Accordion, AccordionHeader, AccordionItem, AccordionPanel, Field, Input, Radio, RadioGroup, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
 import type { TableInfo } from "../../workbook/port";
-import type { ColumnMapping, UnitSystem } from "../../workbook/takedown-api";
+import type { ColumnMapping, HeaderRows, UnitSystem } from "../../workbook/takedown-api";
 import { blockingColumns, ROLES, ROLE_TITLES, type HeaderCell, type TableReport, type TableRole } from "../schema";
 import type { TableChoice } from "../session";
 
@@ -66,9 +66,12 @@ export interface ColumnMatcherProps {
   /** The column step of each chosen table (undefined while it is read). */
   readonly reports: Readonly<Partial<Record<TableRole, TableReport>>>;
   readonly mapping: ColumnMapping;
+  /** Header rows given (1-based sheet rows); a table left out has its header row found. */
+  readonly headerRows: HeaderRows | undefined;
   readonly units: UnitSystem;
   readonly disabled: boolean;
   readonly onChange: (mapping: ColumnMapping) => void;
+  readonly onHeaderRow: (role: TableRole, row: number | undefined) => void;
 }
 
 function cellLabel(c: HeaderCell): string {
@@ -109,9 +112,23 @@ export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
             </AccordionHeader>
             <AccordionPanel>
               <div className={styles.columns}>
-                <Text size={200} className={styles.note}>
-                  Headers read in row {report.headerRow}.
-                </Text>
+                <Field
+                  label="Header row (sheet row)"
+                  hint={props.headerRows?.[role] === undefined ? `Found: row ${report.headerRow}. Type a row when your headers sit elsewhere (below a title block).` : `Given: row ${report.headerRow}. Clear it to have the row found.`}
+                >
+                  <Input
+                    type="number"
+                    min={1}
+                    data-header-row={role}
+                    value={props.headerRows?.[role] === undefined ? "" : String(props.headerRows[role])}
+                    placeholder={String(report.headerRow)}
+                    disabled={props.disabled}
+                    onChange={(_, data) => {
+                      const n = Number(data.value);
+                      props.onHeaderRow(role, data.value.trim() === "" || !Number.isSafeInteger(n) || n < 1 ? undefined : n);
+                    }}
+                  />
+                </Field>
                 {report.columns.map((col) => {
                   const unit = col.units ? ` (${col.units[props.units]})` : "";
                   const taken = col.state === "found" ? col.cells[0] : undefined;
