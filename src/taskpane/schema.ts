@@ -230,6 +230,8 @@ export function reportColumns(role: TableRole, data: TableData, mapping: ColumnM
     }
     if (found !== undefined) return { ...view, state: "found", cells: [cellOf(found)] };
     if (view.required || (mapped !== undefined && mapped.trim() !== "")) {
+      const outside = headerRow !== undefined && (headerRow - 1 < data.top || headerRow - 1 >= data.top + data.values.length);
+      if (outside) return { ...view, state: "missing", cells: [], note: `The header row given, ${headerRow}, is outside the table (rows ${data.top + 1} to ${data.top + data.values.length}).` };
       const note = mapped ? `No column fits "${mapped}" in header row ${sheetRow}; pick the column that holds it.` : `Needed for a build: no header "${view.header}" in row ${sheetRow}; pick the column that holds it.`;
       return { ...view, state: "missing", cells: [], note };
     }

@@ -9,6 +9,7 @@ import { OfficeWorkbookPort } from "../../src/workbook/office";
 import { GENERATED_MARKER } from "../../src/workbook/port";
 import type { BuildTakedown, TakedownOptions } from "../../src/workbook/takedown-api";
 import { PaneSession, breathingProgress } from "../../src/taskpane/session";
+import { SETTINGS_SHEET } from "../../src/workbook/saved-matching";
 import { FakeExcel } from "../workbook/office-fake";
 
 const ZONES = [["Zone", "D (psf)", "L (psf)", "Reducible"], ["Office", 65, 50, "yes"]];
@@ -75,6 +76,37 @@ describe("settings in the workbook", () => {
     await session.saveSettings(saved);
     expect(JSON.parse(String(fake.settings.get("loadpath.mapping")))).toEqual(saved.mapping);
     expect(await new PaneSession(new OfficeWorkbookPort(), recordingBuild([])).loadSettings()).toEqual(saved);
+  });
+});
+
+describe("the saved matching on the settings sheet (Office.js adapter)", () => {
+  it("is written on a generated sheet only, read back by a new session before the pane's own settings, and passed to the build", async () => {
+    const fake = excel();
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    const matching = {
+      tables: { zones: "tblZones", members: "tblFraming", loads: "" },
+      mapping: { members: { Trib: "Trib width", "End at": "End/Location (ft)" } },
+      units: "SI" as const,
+      headerRows: { members: 1 },
+    };
+    await session.saveMatching(matching);
+    expect([...fake.sheets.keys()]).toContain(SETTINGS_SHEET);
+    expect(String(fake.cell(SETTINGS_SHEET, "A1"))).toMatch(new RegExp(`^${GENERATED_MARKER}`));
+    expect(fake.cell(SETTINGS_SHEET, "A4")).toBe("Setting");
+    // The pane's own settings say otherwise: the sheet wins (the command line reads the same sheet).
+    fake.settings.set("loadpath.units", "US");
+    const loaded = await new PaneSession(new OfficeWorkbookPort(), recordingBuild([])).loadSettings();
+    expect(loaded).toEqual({ ...matching, source: "sheet" });
+    await session.run(loaded.tables!, loaded, () => {});
+    expect(calls[0]).toMatchObject({ units: "SI", mapping: matching.mapping, headerRows: { members: 1 } });
+  });
+
+  it("a user's sheet of that name is neither read nor replaced", async () => {
+    excel({ [SETTINGS_SHEET]: [["My own notes"], ["Setting", "Table", "Column", "Value"], ["units", "", "", "SI"]] });
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
+    expect((await session.loadSettings()).source).toBeUndefined();
+    await expect(session.saveMatching({ tables: null, mapping: {}, units: "US" })).rejects.toThrow(/was not made by Loadpath/);
   });
 });
 
