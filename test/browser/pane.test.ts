@@ -128,6 +128,31 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
     await page.close();
   });
 
+  it("names each column's header cell, puts a column given twice first with both uses, and saves the matching without building", async () => {
+    const { page } = await open();
+    await page.getByRole("button", { name: /^Members:/ }).click();
+    const endAt = '[data-column="members:End at"]';
+    const startAt = '[data-column="members:Start at"]';
+    expect(await page.getAttribute(endAt, "data-state")).toBe("found");
+    // The hint under each column names the cell it is taken from.
+    expect(await page.locator("text=/Taken from [A-Z]+[0-9]+: Start at/").count()).toBeGreaterThan(0);
+    const ownEnd = await page.inputValue(endAt);
+    // End at given the Start at column: one column for two is ambiguous, listed first, and blocks the build.
+    await page.selectOption(endAt, await page.inputValue(startAt));
+    await page.waitForSelector(`${endAt}[data-state="ambiguous"]`);
+    const states = await page.$$eval('[data-column^="members:"]', (els) => els.map((e) => e.getAttribute("data-state")));
+    expect(states[0]).toBe("ambiguous");
+    expect(await page.locator("text=/is already taken for Start at/").count()).toBe(1);
+    expect(await page.isDisabled('[data-testid="build"]')).toBe(true);
+    await page.selectOption(endAt, ownEnd);
+    await page.waitForSelector(`${endAt}[data-state="found"]`);
+    expect(await page.textContent('[data-testid="matching-state"]')).toMatch(/Changed since it was saved|Not saved yet/);
+    await page.click('[data-testid="save-matching"]');
+    await page.waitForSelector('[data-testid="matching-state"]:has-text("Saved on the sheet")');
+    expect(await page.locator('[data-testid="result"]').count()).toBe(0); // saving builds nothing
+    await page.close();
+  });
+
   it("keeps the column matching and the units across a reload", async () => {
     const { page } = await open();
     const s = sample();
