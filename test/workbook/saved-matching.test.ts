@@ -55,6 +55,21 @@ function reactionsOf(json: TakedownJson): unknown {
   return JSON.parse(JSON.stringify({ members: json.members, columns: json.columns, foundations: json.foundations, balance: json.balance }));
 }
 
+/**
+ * `loadpath takedown <file> --json` with no table option at all: it must read the saved matching,
+ * and its results must be the hand statics' and those of `expected` (the pane's build).
+ */
+async function expectSameFromSavedMatching(file: string, expected: TakedownJson): Promise<void> {
+  const json = file.replace(/\.xlsx$/, ".json");
+  const r = await cli("takedown", file, "--json", json);
+  expect(r.err).toEqual([]);
+  expect(r.status).toBe(0);
+  expect(r.out.join("\n")).toContain(`Matching read from the sheet "${SETTINGS_SHEET}"`);
+  const got = JSON.parse(readFileSync(json, "utf8")) as TakedownJson;
+  checkByHand(got);
+  expect(reactionsOf(got)).toEqual(reactionsOf(expected));
+}
+
 describe("one saved matching, read by the pane and the command line", () => {
   let dir: string;
   let input: string;
@@ -128,14 +143,7 @@ describe("one saved matching, read by the pane and the command line", () => {
     // The workbook as saved by the host: the firm's sheets and the settings sheet (the takedown is rebuilt).
     const saved = join(dir, "saved-by-pane.xlsx");
     await writeSheets(saved, sheetsOf(port, ["Takedown"]));
-    const json = join(dir, "cli.json");
-    const r = await cli("takedown", saved, "--json", json);
-    expect(r.err).toEqual([]);
-    expect(r.status).toBe(0);
-    expect(r.out.join("\n")).toContain(`Matching read from the sheet "${SETTINGS_SHEET}"`);
-    const got = JSON.parse(readFileSync(json, "utf8")) as TakedownJson;
-    checkByHand(got);
-    expect(reactionsOf(got)).toEqual(reactionsOf(paneJson));
+    await expectSameFromSavedMatching(saved, paneJson);
   });
 
   it("--save-mapping writes what the command line was given; a later run and the pane need no option; --map overrides a saved entry", async () => {
@@ -171,6 +179,11 @@ describe("one saved matching, read by the pane and the command line", () => {
     const handoff = await cli("export", out, "-o", join(dir, "handoff.xlsx"));
     expect(handoff.err).toEqual([]);
     expect(handoff.status).toBe(0);
+
+    // `loadpath report` reads the tables through the same matching (a check only: no -o).
+    const report = await cli("report", out, "--summary");
+    expect(report.err).toEqual([]);
+    expect(report.status).toBe(0);
 
     // --map wins over the saved entry: "Location" fits two cells, a problem naming both.
     const over = await cli("takedown", out, "--map", "members.End at=Location");
@@ -231,14 +244,7 @@ describe("one saved matching, read by the pane and the command line", () => {
         if (!existsSync(out)) await cli("takedown", input, "-o", out, "--save-mapping", ...TABLE_ARGS, ...MAP_ARGS);
         const through = join(dir, `through-${p.name}.xlsx`);
         p.convert(out, through);
-        const json = join(dir, `through-${p.name}.json`);
-        const r = await cli("takedown", through, "--json", json);
-        expect(r.err).toEqual([]);
-        expect(r.status).toBe(0);
-        expect(r.out.join("\n")).toContain(`Matching read from the sheet "${SETTINGS_SHEET}"`);
-        const got = JSON.parse(readFileSync(json, "utf8")) as TakedownJson;
-        checkByHand(got);
-        expect(reactionsOf(got)).toEqual(reactionsOf(paneJson));
+        await expectSameFromSavedMatching(through, paneJson);
       }, 600_000);
     }
     it("the programs are present (or the checks above are skipped loudly)", () => {
