@@ -179,6 +179,10 @@ describe("one saved matching, read by the pane and the command line", () => {
     const handoff = await cli("export", out, "-o", join(dir, "handoff.xlsx"));
     expect(handoff.err).toEqual([]);
     expect(handoff.status).toBe(0);
+    // Built from the tables (a --map given): the tables not named come from the saved matching.
+    const fromTables = await cli("export", out, "-o", join(dir, "handoff-tables.xlsx"), "--map", "members.End at=J");
+    expect(fromTables.err).toEqual([]);
+    expect(fromTables.status).toBe(0);
 
     // `loadpath report` reads the tables through the same matching (a check only: no -o).
     const report = await cli("report", out, "--summary");

@@ -162,6 +162,22 @@ function withSavedMatching(specs: readonly TakedownSpec[], saved: SavedMatching 
 }
 
 /**
+ * A command line that builds from the tables (it names a table, a mapping or a header row) takes
+ * the tables and the unit system it does not give from the saved matching; one that names none is left as it is (it
+ * rebuilds the takedown sheets found by their titles).
+ */
+function withSavedTables(run: TakedownRun, saved: SavedMatching): TakedownRun {
+  if (!namesTables(run)) return run;
+  const t = saved.tables ?? {};
+  const zones = run.zones ?? t.zones;
+  const members = run.members ?? t.members;
+  const loads = run.loads ?? t.loads;
+  const bearings = run.bearings ?? t.bearings;
+  const units = run.units ?? saved.units;
+  return { ...run, ...(units !== undefined ? { units } : {}), ...(zones !== undefined ? { zones } : {}), ...(members !== undefined ? { members } : {}), ...(loads !== undefined ? { loads } : {}), ...(bearings !== undefined ? { bearings } : {}) };
+}
+
+/**
  * The takedowns of a command line: when it names a table, a mapping or a sheet, one takedown
  * from the tables (each not named: the table or sheet so called), in the units given or shown by
  * the headers, on the sheet given (default "Takedown"); otherwise {@link takedownsOf}.
@@ -261,7 +277,8 @@ export async function exportHandoff(input: string, output: string | undefined, o
   });
   const saved = await readSavedMatching(port);
   if (saved !== null && "error" in saved) throw new Error(`${input}: ${saved.error}`);
-  const specs = withSavedMatching(options.takedowns ?? (options.run ? takedownsOfRun(wb, options.run) : takedownsOf(wb, options.units)), saved?.matching);
+  const run = options.run && saved !== null && "matching" in saved ? withSavedTables(options.run, saved.matching) : options.run;
+  const specs = withSavedMatching(options.takedowns ?? (run ? takedownsOfRun(wb, run) : takedownsOf(wb, options.units)), saved?.matching);
   const problems: Problem[] = [];
   const hints: string[] = [];
   const takedowns: { sheet: string; helperSheet: string; members: number; json?: TakedownJson }[] = [];
