@@ -17,6 +17,7 @@ export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>
   takedown: () => import(/* webpackMode: "eager" */ "./commands/takedown"),
   export: () => import(/* webpackMode: "eager" */ "./commands/export"),
   report: () => import(/* webpackMode: "eager" */ "./commands/report"),
+  plan: () => import(/* webpackMode: "eager" */ "./commands/plan"),
 };
 
 async function help(io: CliIO): Promise<void> {

@@ -108,7 +108,10 @@ export function renderKeyPlan(input: KeyPlanInput, width = 720): string {
           });
           lines.push(placed);
         }
-      for (const l of lines) rowChips.unshift(l);
+      for (const l of lines) {
+        for (const c of l) chips.set(c.m.mark, c); // known before the rows above are placed
+        rowChips.unshift(l);
+      }
     }
     const y0 = y;
     y += 10;
