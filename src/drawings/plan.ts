@@ -14,6 +14,7 @@ import type { Derivation, DerivedMember, Plan, Point, TributaryRegion } from "..
 import { interiorPoint } from "../engine/framing/geometry";
 import { escapeXml, truncate } from "./escape";
 import { formatLength, formatQuantity } from "./format";
+import { wrapText } from "./labels";
 import { textWidth } from "./metrics";
 import { REVIEW_NOTICE } from "./notice";
 import { arrow, el, FONT, line, num, PALETTE, points, svgDocument, text, type Attrs } from "./svg";
@@ -390,8 +391,9 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
   if (selected !== undefined) {
     const sm = d.members.find((m) => m.mark === selected)!;
     const chain = [selected, ...path].map((p) => truncate(p, 16)).join(" \u2192 ");
-    foot.push(text(8, y, truncate(`Selected ${selected}: tributary area ${formatQuantity(sm.tributaryArea, "area", "-")} ${areaUnit}; load path ${chain}`, 140), { size: FONT.label, fill: PALETTE.load }, { "data-role": "selection" }));
-    y += 16;
+    const lines = wrapText(`Selected ${selected}: tributary area ${formatQuantity(sm.tributaryArea, "area", "-")} ${areaUnit}; load path ${chain}`, W - 16, FONT.label).slice(0, 4);
+    foot.push(el("g", { "data-role": "selection" }, ...lines.map((l, i) => text(8, y + i * 13, l, { size: FONT.label, fill: PALETTE.load }))));
+    y += 13 * lines.length + 4;
   }
   foot.push(legend(8, y, W));
   y += 30;

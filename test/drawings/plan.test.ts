@@ -161,7 +161,7 @@ describe("framing plan drawing: selection and load path", () => {
     for (const r of regionsOf(roof, "B2R")) expect(r.getAttribute("fill")).toBe(PALETTE.loadFill);
     const g1 = byRole(roof, "member").find((e) => e.getAttribute("data-mark") === "G1R")!;
     expect(g1.getElementsByTagName("line")[0]!.getAttribute("stroke")).toBe(PALETTE.reaction);
-    expect(byRole(roof, "selection")[0]!.textContent).toMatch(/^Selected B2R: tributary area 240\.0 ft²; load path B2R → G1R → G3R/);
+    expect(byRole(roof, "selection")[0]!.getElementsByTagName("text")[0]!.textContent).toMatch(/^Selected B2R: tributary area 240\.0 ft²; load path B2R → G1R → G3R/);
   });
 });
 
