@@ -30,7 +30,7 @@ function tables(): { framing: TableData; decks: TableData; grids: TableData; lev
 }
 
 function median(fn: () => unknown, runs = 9): number {
-  for (let i = 0; i < 3; i++) fn();
+  for (let i = 0; i < 8; i++) fn();
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
