@@ -10,7 +10,7 @@ import { planTakedown } from "../engine/takedown";
 import type { TableReading } from "../engine/takedown/tables";
 import type { TableData, UnitSystem } from "../engine/takedown/types";
 import type { FramingPlanModel } from "../drawings/plan";
-import type { KeyPlanInput, KeyPlanMember } from "../drawings/key-plan";
+import { keyPlanOfModel, type KeyPlanInput } from "../drawings/key-plan";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { sheetRef } from "../workbook/a1";
 import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
@@ -89,11 +89,5 @@ export async function planInputOf(workbook: XlsxWorkbook, run: PlanRun): Promise
   if (zonesName === undefined) problems.unshift(`${sheetRef(members.sheet)}!${a1(members.top, members.left)}: no Zones table; the key plan is drawn from the Members table alone.`);
   const model = p.model;
   if (!model) return { kind: "key", input: { levels: [], members: [] }, units, problems };
-  const bearingSupports = new Map<string, string[]>();
-  for (const b of model.bearings) if (b.valid) bearingSupports.set(b.mark, [...(bearingSupports.get(b.mark) ?? []), b.support.mark]);
-  const list: KeyPlanMember[] = model.members
-    .filter((m) => m.valid && m.firstOfMark)
-    .map((m) => ({ mark: m.mark, type: m.type, level: m.level, supports: [m.start.mark, ...(bearingSupports.get(m.mark) ?? []), m.end.mark].filter((s, i, all) => s !== "" && all.indexOf(s) === i) }));
-  const levels = p.levels.length > 0 ? [...p.levels] : [...new Set(list.map((m) => m.level))];
-  return { kind: "key", input: { levels, members: list }, units, problems };
+  return { kind: "key", input: keyPlanOfModel(model, p.levels), units, problems };
 }

@@ -5,6 +5,7 @@
  * columns of a stack kept in one vertical line through the levels. It shows the load path's
  * structure, not positions: the drawing says so in its heading.
  */
+import type { TakedownModel } from "../engine/takedown/model";
 import { escapeXml, truncate } from "./escape";
 import { textWidth } from "./metrics";
 import { REVIEW_NOTICE } from "./notice";
@@ -26,6 +27,21 @@ export interface KeyPlanInput {
   /** Level names, top down. */
   readonly levels: readonly string[];
   readonly members: readonly KeyPlanMember[];
+}
+
+/**
+ * The key plan of a takedown model read from typed tables: every valid member (first row of a
+ * mark) with what it bears on (start support, Bearings rows, end support).
+ * @param model - the model as read (src/engine/takedown readModel / planTakedown)
+ * @param levels - level names, top down
+ */
+export function keyPlanOfModel(model: Pick<TakedownModel, "members" | "bearings">, levels: readonly string[]): KeyPlanInput {
+  const bearing = new Map<string, string[]>();
+  for (const b of model.bearings) if (b.valid) bearing.set(b.mark, [...(bearing.get(b.mark) ?? []), b.support.mark]);
+  const members = model.members
+    .filter((m) => m.valid && m.firstOfMark)
+    .map((m) => ({ mark: m.mark, type: m.type, level: m.level, supports: [m.start.mark, ...(bearing.get(m.mark) ?? []), m.end.mark].filter((s, i, all) => s !== "" && all.indexOf(s) === i) }));
+  return { levels: levels.length > 0 ? [...levels] : [...new Set(members.map((m) => m.level))], members };
 }
 
 const ROWS: readonly KeyPlanType[] = ["joist", "beam", "girder", "wall", "column"];
