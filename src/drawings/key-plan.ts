@@ -145,14 +145,14 @@ export function renderKeyPlan(input: KeyPlanInput, width = 720): string {
   const back: string[] = [];
   for (const [i, b] of bands.entries()) {
     back.push(el("rect", { x: 4, y: b.y0, width: W - 8, height: b.y1 - b.y0, fill: i % 2 === 0 ? "#f4f6f9" : PALETTE.paper, stroke: PALETTE.guide, "stroke-width": 0.6 }));
-    back.push(text(10, b.y0 + 16, truncate(b.level === FOUNDATIONS ? "Foundations" : `Level ${b.level}`, 11), { size: FONT.small, bold: true, fill: PALETTE.muted }, { "data-role": "level-name" }));
+    back.push(text(10, b.y0 + 16, truncate(b.level === FOUNDATIONS ? "Foundations" : `Level ${b.level}`, 11), { size: FONT.small, bold: true, fill: PALETTE.muted }, { "data-role": "key-level-name" }));
   }
   const links: string[] = [];
   for (const c of chips.values())
     for (const s of c.m.supports) {
       const t = chips.get(s);
       if (!t) continue;
-      links.push(line(c.x + c.w / 2, c.y + CHIP_H, t.x + t.w / 2, t.y, c.m.type === "column" ? PALETTE.ink : PALETTE.guide, c.m.type === "column" ? 1.2 : 0.8, { "data-role": "bears-on", "data-from": c.m.mark, "data-to": s }));
+      links.push(line(c.x + c.w / 2, c.y + CHIP_H, t.x + t.w / 2, t.y, c.m.type === "column" ? PALETTE.ink : PALETTE.guide, c.m.type === "column" ? 1.2 : 0.8, { "data-role": "key-bears-on", "data-from": c.m.mark, "data-to": s }));
     }
   const boxes: string[] = [];
   for (const c of chips.values()) {
@@ -171,7 +171,7 @@ export function renderKeyPlan(input: KeyPlanInput, width = 720): string {
     });
     const label = text(c.x + c.w / 2, c.y + 11, truncate(c.m.mark, 14), { size: FONT.small, anchor: "middle", bold: t === "girder", fill: dark ? PALETTE.paper : PALETTE.ink });
     const tip = `<title>${escapeXml(`${c.m.mark} (${t})${c.m.supports.length > 0 ? `: bears on ${c.m.supports.join(", ")}` : ""}`)}</title>`;
-    boxes.push(el("g", { "data-role": "key-member", "data-mark": c.m.mark, "data-type": t, "data-level": c.m.level }, tip, box, label));
+    boxes.push(el("g", { "data-role": "key-member", "data-plan-mark": c.m.mark, "data-type": t, "data-plan-level": c.m.level }, tip, box, label));
   }
   const head = text(8, 16, "Key plan (schematic): levels, members and what each bears on", { size: FONT.title, bold: true });
   const sub = text(8, 31, "Not to scale: the member tables give no positions. A line runs from each member to what it bears on.", { size: FONT.small, fill: PALETTE.muted });

@@ -262,25 +262,25 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
       // a hairline of the fill's own colour hides the seams between pieces of one member
       stroke: isSel ? PALETTE.load : fill,
       "stroke-width": isSel ? 0.8 : 0.4,
-      "data-role": "tributary",
-      "data-mark": r.mark,
+      "data-role": "plan-tributary",
+      "data-plan-mark": r.mark,
       "data-zone": r.zone,
       "data-area": r.area,
       "data-plan": r.polygon.map((p) => `${p.x},${p.y}`).join(" "),
     }, title(`${r.mark}: deck ${r.area}${r.zone !== "" ? `, zone ${r.zone}` : ""}, ${formatQuantity(area(r.polygon), "area", "-")} ${areaUnit} of this piece`));
   });
-  parts.push(el("g", { "data-role": "tributaries" }, ...regionMarkup));
+  parts.push(el("g", { "data-role": "plan-tributaries" }, ...regionMarkup));
 
   // grid lines and bubbles
   const over = 14;
   const gridParts: string[] = [];
   for (const [name, x] of gx) {
     const top = MARGIN.top - over;
-    gridParts.push(el("g", { "data-role": "grid", "data-grid": name, "data-x": x }, line(X(x), top, X(x), MARGIN.top + plotH + 6, PALETTE.muted, 0.6, { "stroke-dasharray": "14 3 2 3" }), bubble(X(x), top - BUBBLE_R, name)));
+    gridParts.push(el("g", { "data-role": "plan-grid", "data-grid": name, "data-x": x }, line(X(x), top, X(x), MARGIN.top + plotH + 6, PALETTE.muted, 0.6, { "stroke-dasharray": "14 3 2 3" }), bubble(X(x), top - BUBBLE_R, name)));
   }
   for (const [name, y] of gy) {
     const left = MARGIN.left - over;
-    gridParts.push(el("g", { "data-role": "grid", "data-grid": name, "data-y": y }, line(left, Y(y), W - MARGIN.right + 6, Y(y), PALETTE.muted, 0.6, { "stroke-dasharray": "14 3 2 3" }), bubble(left - BUBBLE_R, Y(y), name)));
+    gridParts.push(el("g", { "data-role": "plan-grid", "data-grid": name, "data-y": y }, line(left, Y(y), W - MARGIN.right + 6, Y(y), PALETTE.muted, 0.6, { "stroke-dasharray": "14 3 2 3" }), bubble(left - BUBBLE_R, Y(y), name)));
   }
   parts.push(el("g", {}, ...gridParts));
 
@@ -291,7 +291,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     if (k.kind === "opening") {
       const bx0 = Math.min(...k.corners.map((p) => X(p.x))), bx1 = Math.max(...k.corners.map((p) => X(p.x)));
       const by0 = Math.min(...k.corners.map((p) => Y(p.y))), by1 = Math.max(...k.corners.map((p) => Y(p.y)));
-      parts.push(el("g", { "data-role": "opening", "data-area": k.area },
+      parts.push(el("g", { "data-role": "plan-opening", "data-area": k.area },
         title(`Opening ${k.area}`),
         el("polygon", { points: pts, fill: PALETTE.paper, stroke: PALETTE.ink, "stroke-width": 0.9 }),
         line(bx0, by0, bx1, by1, PALETTE.muted, 0.6), line(bx0, by1, bx1, by0, PALETTE.muted, 0.6)));
@@ -307,12 +307,12 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     const dirs = k.kind === "two-way" ? [0, Math.PI / 2] : [k.span];
     const arrows = dirs.map((a) => {
       const ux = Math.cos(a) * half, uy = -Math.sin(a) * half;
-      return el("g", { "data-role": "span-arrow" }, arrow(cx, cy, cx + ux, cy + uy, PALETTE.ink, 0.9, 5), arrow(cx, cy, cx - ux, cy - uy, PALETTE.ink, 0.9, 5));
+      return el("g", { "data-role": "plan-span-arrow" }, arrow(cx, cy, cx + ux, cy + uy, PALETTE.ink, 0.9, 5), arrow(cx, cy, cx - ux, cy - uy, PALETTE.ink, 0.9, 5));
     });
     const name = truncate(`${k.area}${k.zone !== "" ? ` \u00B7 ${k.zone}` : ""}`, 28);
-    parts.push(el("g", { "data-role": "deck", "data-area": k.area, "data-kind": k.kind },
+    parts.push(el("g", { "data-role": "plan-deck", "data-area": k.area, "data-deck-kind": k.kind },
       title(`Deck ${k.area}: ${k.kind}${k.kind === "one-way" ? ` spanning at ${formatLength((k.span * 180) / Math.PI)}\u00B0 from +x` : ""}${k.zone !== "" ? `, zone ${k.zone}` : ""}`),
-      el("polygon", { points: pts, fill: "none", stroke: PALETTE.ink, "stroke-width": 1.1, "data-role": "slab-edge" }),
+      el("polygon", { points: pts, fill: "none", stroke: PALETTE.ink, "stroke-width": 1.1, "data-role": "plan-slab-edge" }),
       ...arrows,
       text(cx, cy + half + 11, name, { size: FONT.small, anchor: "middle", italic: true, fill: PALETTE.muted, halo: true })));
   }
@@ -333,7 +333,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
       const nx = len > 0 ? (-(y2 - y1) / len) * (WALL_GAP / 2) : 0, ny = len > 0 ? ((x2 - x1) / len) * (WALL_GAP / 2) : 0;
       body = el("polygon", { points: points([[x1 + nx, y1 + ny], [x2 + nx, y2 + ny], [x2 - nx, y2 - ny], [x1 - nx, y1 - ny]]), fill: PALETTE.fill, stroke: colour, "stroke-width": st.width + extraW });
     } else body = line(x1, y1, x2, y2, colour, st.width + extraW, { "stroke-dasharray": st.dash, "stroke-linecap": "round" });
-    memberParts.push(el("g", { "data-role": "member", "data-mark": m.mark, "data-type": m.type, "data-x1": m.x1, "data-y1": m.y1, "data-x2": m.x2, "data-y2": m.y2, "data-tributary-area": m.tributaryArea }, title(memberTip(m, unit, areaUnit)), body));
+    memberParts.push(el("g", { "data-role": "plan-member", "data-plan-mark": m.mark, "data-type": m.type, "data-x1": m.x1, "data-y1": m.y1, "data-x2": m.x2, "data-y2": m.y2, "data-tributary-area": m.tributaryArea }, title(memberTip(m, unit, areaUnit)), body));
   }
   parts.push(el("g", {}, ...memberParts));
 
@@ -343,7 +343,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     const [cx, cy] = P({ x: c.x1, y: c.y1 });
     const colour = c.mark === selected ? PALETTE.load : onPath.has(c.mark) ? PALETTE.reaction : PALETTE.ink;
     const h = COLUMN_SIZE / 2;
-    colParts.push(el("g", { "data-role": "column", "data-mark": c.mark, "data-x1": c.x1, "data-y1": c.y1 }, title(`Column ${c.mark}${c.span !== null ? `, storey height ${formatLength(c.span)} ${unit}` : ""}${c.startSupport !== null ? `, on ${c.startSupport}` : ""}`), el("rect", { x: cx - h, y: cy - h, width: COLUMN_SIZE, height: COLUMN_SIZE, fill: colour })));
+    colParts.push(el("g", { "data-role": "plan-column", "data-plan-mark": c.mark, "data-x1": c.x1, "data-y1": c.y1 }, title(`Column ${c.mark}${c.span !== null ? `, storey height ${formatLength(c.span)} ${unit}` : ""}${c.startSupport !== null ? `, on ${c.startSupport}` : ""}`), el("rect", { x: cx - h, y: cy - h, width: COLUMN_SIZE, height: COLUMN_SIZE, fill: colour })));
   }
   parts.push(el("g", {}, ...colParts));
 
@@ -357,7 +357,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     const box = [cx + 5, cx - 5 - w].map((x0) => ({ x0, y0: cy - 5 - FONT.small, x1: x0 + w, y1: cy - 4 })).find((b) => b.x0 >= 0 && b.x1 <= W && !labels.some((o) => boxesOverlap(o, b)));
     if (!box) continue;
     labels.push(box);
-    labelParts.push(text(box.x0, cy - 5, t, { size: FONT.small, fill: c.mark === selected ? PALETTE.load : PALETTE.ink, halo: true }, { "data-role": "column-label", "data-mark": c.mark }));
+    labelParts.push(text(box.x0, cy - 5, t, { size: FONT.small, fill: c.mark === selected ? PALETTE.load : PALETTE.ink, halo: true }, { "data-role": "plan-column-label", "data-plan-mark": c.mark }));
   }
   for (const m of [...drawn].reverse()) {
     const [x1, y1, x2, y2] = [X(m.x1), Y(m.y1), X(m.x2), Y(m.y2)];
@@ -379,7 +379,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     if (labels.some((b) => boxesOverlap(b, box))) continue;
     labels.push(box);
     const fill = m.mark === selected ? PALETTE.load : onPath.has(m.mark) ? PALETTE.reaction : PALETTE.ink;
-    labelParts.push(text(0, 0, t, { size, anchor: "middle", bold: m.type === "girder", fill, halo: true }, { transform: `translate(${num(tx)},${num(ty)}) rotate(${num(ang)})`, "data-role": "member-label", "data-mark": m.mark }));
+    labelParts.push(text(0, 0, t, { size, anchor: "middle", bold: m.type === "girder", fill, halo: true }, { transform: `translate(${num(tx)},${num(ty)}) rotate(${num(ang)})`, "data-role": "plan-member-label", "data-plan-mark": m.mark }));
   }
   parts.push(el("g", {}, ...labelParts));
 
@@ -392,14 +392,14 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     const sm = d.members.find((m) => m.mark === selected)!;
     const chain = [selected, ...path].map((p) => truncate(p, 16)).join(" \u2192 ");
     const lines = wrapText(`Selected ${selected}: tributary area ${formatQuantity(sm.tributaryArea, "area", "-")} ${areaUnit}; load path ${chain}`, W - 16, FONT.label).slice(0, 4);
-    foot.push(el("g", { "data-role": "selection" }, ...lines.map((l, i) => text(8, y + i * 13, l, { size: FONT.label, fill: PALETTE.load }))));
+    foot.push(el("g", { "data-role": "plan-selection" }, ...lines.map((l, i) => text(8, y + i * 13, l, { size: FONT.label, fill: PALETTE.load }))));
     y += 13 * lines.length + 4;
   }
   foot.push(legend(8, y, W));
   y += 30;
   foot.push(text(8, y, REVIEW_NOTICE, { size: FONT.small, fill: PALETTE.muted }));
   y += 8;
-  const attrs: Attrs = { "data-role": "framing-plan", "data-level": level, "data-scale": s, "data-xmin": xmin, "data-ymax": ymax, "data-left": MARGIN.left, "data-top": MARGIN.top };
+  const attrs: Attrs = { "data-role": "framing-plan", "data-plan-level": level, "data-scale": s, "data-xmin": xmin, "data-ymax": ymax, "data-left": MARGIN.left, "data-top": MARGIN.top };
   return svgDocument(W, y, `Framing plan, level ${level}`, head + sub + parts.join("") + foot.join(""), attrs);
 }
 
@@ -408,7 +408,7 @@ function bubble(cx: number, cy: number, name: string): string {
   const t = truncate(name, 8);
   const w = Math.max(2 * BUBBLE_R, textWidth(t, FONT.small) + 6);
   const shape = w <= 2 * BUBBLE_R ? el("circle", { cx, cy, r: BUBBLE_R, fill: PALETTE.paper, stroke: PALETTE.muted, "stroke-width": 0.8 }) : el("rect", { x: cx - w / 2, y: cy - BUBBLE_R, width: w, height: 2 * BUBBLE_R, rx: BUBBLE_R, fill: PALETTE.paper, stroke: PALETTE.muted, "stroke-width": 0.8 });
-  return shape + text(cx, cy + 3.4, t, { size: FONT.small, anchor: "middle", bold: true }, { "data-role": "grid-name" });
+  return shape + text(cx, cy + 3.4, t, { size: FONT.small, anchor: "middle", bold: true }, { "data-role": "plan-grid-name" });
 }
 
 function memberTip(m: DerivedMember, unit: string, areaUnit: string): string {
@@ -435,5 +435,5 @@ function legend(x: number, y: number, width: number): string {
   item(el("rect", { x: cx + 4, y: y - 6, width: 16, height: 12, fill: PALETTE.paper, stroke: PALETTE.ink, "stroke-width": 0.9 }) + line(cx + 4, y - 6, cx + 20, y + 6, PALETTE.muted, 0.6) + line(cx + 4, y + 6, cx + 20, y - 6, PALETTE.muted, 0.6), "opening");
   item(arrow(cx + 12, y, cx + 24, y, PALETTE.ink, 0.9, 5) + arrow(cx + 12, y, cx, y, PALETTE.ink, 0.9, 5), "deck span");
   item(el("rect", { x: cx, y: y - 6, width: 12, height: 12, fill: TRIBUTARY_TINTS[0] }) + el("rect", { x: cx + 12, y: y - 6, width: 12, height: 12, fill: TRIBUTARY_TINTS[1] }), "tributary");
-  return el("g", { "data-role": "legend" }, ...items);
+  return el("g", { "data-role": "plan-legend" }, ...items);
 }

@@ -39,7 +39,7 @@ export interface ReportInput {
 /** The key plan part: each level's framing plan when the takedown comes from a plan, else the schematic key plan. */
 function keyPlans(input: ReportInput): Html {
   const f = input.framing;
-  if (f) return join([...planLevels(f)].reverse().map((l) => el("figure", { class: "plan", "data-role": "key-plan-level", "data-level": l }, raw(renderFramingPlan(f, l)))));
+  if (f) return join([...planLevels(f)].reverse().map((l) => el("figure", { class: "plan", "data-role": "key-plan-level", "data-plan-level": l }, raw(renderFramingPlan(f, l)))));
   return el("figure", { class: "plan", "data-role": "key-plan-level" }, raw(renderKeyPlan(keyPlanOfModel(input.record.model, input.record.levels))));
 }
 

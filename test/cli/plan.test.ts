@@ -66,11 +66,11 @@ describe("loadpath plan on a plan workbook", () => {
     const r = await run(PLAN, "-o", out, "--level", "2", "--select", HOSTILE_MARK);
     expect(r.status).toBe(0);
     const root = parseSvg(readFileSync(out, "utf8"));
-    expect(root.getAttribute("data-level")).toBe("2");
-    const b2 = byRole(root, "member").find((e) => e.getAttribute("data-mark") === HOSTILE_MARK)!;
+    expect(root.getAttribute("data-plan-level")).toBe("2");
+    const b2 = byRole(root, "plan-member").find((e) => e.getAttribute("data-plan-mark") === HOSTILE_MARK)!;
     // 10 ft x 24 ft less the 3 ft x 6 ft of the opening on its side (hand statics)
     expect(numAttr(b2, "data-tributary-area")).toBeCloseTo(222, 9);
-    expect(byRole(root, "selection")).toHaveLength(1);
+    expect(byRole(root, "plan-selection")).toHaveLength(1);
   });
 
   it("checks without -o and writes nothing", async () => {
@@ -124,7 +124,7 @@ describe("loadpath plan on the sample workbooks (typed tables: key plan)", () =>
         if (i > 1 && typeof v === "string" && v.trim() !== "") marks.push(v.trim());
       });
       expect(marks.length).toBeGreaterThan(10);
-      const drawn = new Set(byRole(svg, "key-member").map((e) => e.getAttribute("data-mark")));
+      const drawn = new Set(byRole(svg, "key-member").map((e) => e.getAttribute("data-plan-mark")));
       for (const m of marks) expect(drawn.has(m), m).toBe(true);
       expect(html).toContain("Not to scale");
     });

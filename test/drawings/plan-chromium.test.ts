@@ -44,24 +44,24 @@ async function inspect(page: Page, html: string): Promise<Seen> {
     const n = (e: Element, a: string) => Number(e.getAttribute(a));
     const s = n(root, "data-scale"), xmin = n(root, "data-xmin"), ymax = n(root, "data-ymax"), left = n(root, "data-left"), top = n(root, "data-top");
     const inv = (x: number, y: number) => [xmin + (x - left) / s, ymax - (y - top) / s] as const;
-    const members = Array.from(root.querySelectorAll('[data-role="member"]')).map((g) => {
+    const members = Array.from(root.querySelectorAll('[data-role="plan-member"]')).map((g) => {
       const l = g.querySelector("line") as SVGLineElement;
       const [x1, y1] = inv(l.x1.baseVal.value, l.y1.baseVal.value);
       const [x2, y2] = inv(l.x2.baseVal.value, l.y2.baseVal.value);
-      return { mark: g.getAttribute("data-mark") ?? "", x1, y1, x2, y2 };
+      return { mark: g.getAttribute("data-plan-mark") ?? "", x1, y1, x2, y2 };
     });
     const areas: Record<string, number> = {};
-    for (const p of Array.from(root.querySelectorAll('[data-role="tributary"]')) as SVGPolygonElement[]) {
+    for (const p of Array.from(root.querySelectorAll('[data-role="plan-tributary"]')) as SVGPolygonElement[]) {
       const pts = Array.from(p.points).map((q) => inv(q.x, q.y));
       let a = 0;
       pts.forEach(([x1, y1], i) => {
         const [x2, y2] = pts[(i + 1) % pts.length]!;
         a += x1 * y2 - x2 * y1;
       });
-      const mark = p.getAttribute("data-mark") ?? "";
+      const mark = p.getAttribute("data-plan-mark") ?? "";
       areas[mark] = (areas[mark] ?? 0) + Math.abs(a) / 2;
     }
-    const labels = Array.from(root.querySelectorAll('[data-role="member-label"], [data-role="column-label"], [data-role="grid-name"]')).map((t) => ({ text: t.textContent ?? "", box: t.getBoundingClientRect() }));
+    const labels = Array.from(root.querySelectorAll('[data-role="plan-member-label"], [data-role="plan-column-label"], [data-role="plan-grid-name"]')).map((t) => ({ text: t.textContent ?? "", box: t.getBoundingClientRect() }));
     const overlaps: string[] = [];
     labels.forEach((a, i) => {
       for (const b of labels.slice(0, i)) {

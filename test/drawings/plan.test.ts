@@ -39,7 +39,7 @@ function inverse(root: SvgElement): (x: number, y: number) => Pt {
 
 const model = fixtureModel();
 const level2 = parseSvg(renderFramingPlan(model, "2"));
-const regionsOf = (root: SvgElement, mark: string): SvgElement[] => byRole(root, "tributary").filter((e) => e.getAttribute("data-mark") === mark);
+const regionsOf = (root: SvgElement, mark: string): SvgElement[] => byRole(root, "plan-tributary").filter((e) => e.getAttribute("data-plan-mark") === mark);
 
 describe("framing plan drawing: geometry equals the derived model", () => {
   it("the fixture derives without problems, on two levels", () => {
@@ -50,11 +50,11 @@ describe("framing plan drawing: geometry equals the derived model", () => {
   it("every member and column is drawn at its derived points (data and drawn coordinates)", () => {
     const inv = inverse(level2);
     const s = numAttr(level2, "data-scale");
-    const drawnMembers = byRole(level2, "member");
+    const drawnMembers = byRole(level2, "plan-member");
     const derived = model.derivation.members.filter((m) => m.level === "2" && m.type !== "column" && m.type !== "foundation");
-    expect(drawnMembers.map((e) => e.getAttribute("data-mark")).sort()).toEqual(derived.map((m) => m.mark).sort());
+    expect(drawnMembers.map((e) => e.getAttribute("data-plan-mark")).sort()).toEqual(derived.map((m) => m.mark).sort());
     for (const m of derived) {
-      const g = drawnMembers.find((e) => e.getAttribute("data-mark") === m.mark)!;
+      const g = drawnMembers.find((e) => e.getAttribute("data-plan-mark") === m.mark)!;
       expect([numAttr(g, "data-x1"), numAttr(g, "data-y1"), numAttr(g, "data-x2"), numAttr(g, "data-y2")]).toEqual([m.x1, m.y1, m.x2, m.y2]);
       const l = g.getElementsByTagName("line")[0]!;
       const [ax, ay] = inv(numAttr(l, "x1"), numAttr(l, "y1"));
@@ -63,11 +63,11 @@ describe("framing plan drawing: geometry equals the derived model", () => {
       for (const [got, want] of [[ax, m.x1], [ay, m.y1], [bx, m.x2], [by, m.y2]] as const) expect(Math.abs(got - want)).toBeLessThanOrEqual(0.006 / s);
     }
     // B2 is at x = A + 10 (hand reading of the Framing row), from grid 1 to grid 2
-    const b2 = drawnMembers.find((e) => e.getAttribute("data-mark") === HOSTILE_MARK)!;
+    const b2 = drawnMembers.find((e) => e.getAttribute("data-plan-mark") === HOSTILE_MARK)!;
     expect([numAttr(b2, "data-x1"), numAttr(b2, "data-y1"), numAttr(b2, "data-x2"), numAttr(b2, "data-y2")]).toEqual([10, 0, 10, 24]);
-    const cols = byRole(level2, "column");
+    const cols = byRole(level2, "plan-column");
     expect(cols).toHaveLength(6);
-    const c3 = cols.find((e) => e.getAttribute("data-mark") === "C3")!;
+    const c3 = cols.find((e) => e.getAttribute("data-plan-mark") === "C3")!;
     expect([numAttr(c3, "data-x1"), numAttr(c3, "data-y1")]).toEqual([54, 0]);
     const rect = c3.getElementsByTagName("rect")[0]!;
     const [cx, cy] = inv(numAttr(rect, "x") + numAttr(rect, "width") / 2, numAttr(rect, "y") + numAttr(rect, "height") / 2);
@@ -76,12 +76,12 @@ describe("framing plan drawing: geometry equals the derived model", () => {
 
   it("grid lines are drawn at their positions with their names", () => {
     const inv = inverse(level2);
-    const grids = byRole(level2, "grid");
+    const grids = byRole(level2, "plan-grid");
     expect(grids.map((g) => g.getAttribute("data-grid")).sort()).toEqual(["1", "2", "A", "B", "C"]);
     const b = grids.find((g) => g.getAttribute("data-grid") === "B")!;
     const l = b.getElementsByTagName("line")[0]!;
     expect(inv(numAttr(l, "x1"), 0)[0]).toBeCloseTo(30, 2);
-    expect(byRole(b, "grid-name")[0]!.textContent).toBe("B");
+    expect(byRole(b, "plan-grid-name")[0]!.textContent).toBe("B");
   });
 
   it("each member's shaded regions add up to its derived tributary area (shoelace here)", () => {
@@ -117,7 +117,7 @@ describe("framing plan drawing: geometry equals the derived model", () => {
   });
 
   it("the regions tile the decks less the opening (no gap, no double count)", () => {
-    const all = byRole(level2, "tributary").reduce((sum, r) => sum + shoelace(pairs(r.getAttribute("data-plan")!, /,/)), 0);
+    const all = byRole(level2, "plan-tributary").reduce((sum, r) => sum + shoelace(pairs(r.getAttribute("data-plan")!, /,/)), 0);
     expect(all).toBeCloseTo(30 * 24 - 6 * 6 + 24 * 24, 9);
   });
 
@@ -125,26 +125,26 @@ describe("framing plan drawing: geometry equals the derived model", () => {
     const fill = (mark: string) => regionsOf(level2, mark)[0]!.getAttribute("fill");
     const chain = ["B1", HOSTILE_MARK, "B3", "B4"];
     for (let i = 0; i + 1 < chain.length; i++) expect(fill(chain[i]!), chain[i]).not.toBe(fill(chain[i + 1]!));
-    for (const r of byRole(level2, "tributary")) expect(TRIBUTARY_TINTS as readonly string[]).toContain(r.getAttribute("fill"));
+    for (const r of byRole(level2, "plan-tributary")) expect(TRIBUTARY_TINTS as readonly string[]).toContain(r.getAttribute("fill"));
   });
 
   it("decks carry their span arrows (two for the two-way panel), openings and slab edges", () => {
-    const decks = byRole(level2, "deck");
+    const decks = byRole(level2, "plan-deck");
     expect(decks.map((d) => d.getAttribute("data-area")).sort()).toEqual(["D1", "D2"]);
-    expect(byRole(decks.find((d) => d.getAttribute("data-area") === "D1")!, "span-arrow")).toHaveLength(1);
-    expect(byRole(decks.find((d) => d.getAttribute("data-area") === "D2")!, "span-arrow")).toHaveLength(2);
-    expect(byRole(level2, "opening").map((o) => o.getAttribute("data-area"))).toEqual(["O1"]);
-    expect(byRole(level2, "slab-edge")).toHaveLength(2);
+    expect(byRole(decks.find((d) => d.getAttribute("data-area") === "D1")!, "plan-span-arrow")).toHaveLength(1);
+    expect(byRole(decks.find((d) => d.getAttribute("data-area") === "D2")!, "plan-span-arrow")).toHaveLength(2);
+    expect(byRole(level2, "plan-opening").map((o) => o.getAttribute("data-area"))).toEqual(["O1"]);
+    expect(byRole(level2, "plan-slab-edge")).toHaveLength(2);
   });
 
   it("every member and column carries its mark: a label where it fits, a title always", () => {
     for (const role of ["member", "column"]) {
       for (const g of byRole(level2, role)) {
-        const mark = g.getAttribute("data-mark")!;
+        const mark = g.getAttribute("data-plan-mark")!;
         expect(g.getElementsByTagName("title")[0]!.textContent!.includes(mark), mark).toBe(true);
       }
     }
-    const labelled = byRole(level2, "member-label").map((t) => t.getAttribute("data-mark"));
+    const labelled = byRole(level2, "plan-member-label").map((t) => t.getAttribute("data-plan-mark"));
     expect(labelled).toContain("G1");
     expect(labelled).toContain("B4");
   });
@@ -159,9 +159,9 @@ describe("framing plan drawing: selection and load path", () => {
     expect(path.slice(0, 2)).toEqual(["G1R", "G3R"]);
     expect(path).toEqual(expect.arrayContaining(["C1R", "C2R", "C4R", "C5R", "C1", "C2", "C4", "C5", "F-C1"]));
     for (const r of regionsOf(roof, "B2R")) expect(r.getAttribute("fill")).toBe(PALETTE.loadFill);
-    const g1 = byRole(roof, "member").find((e) => e.getAttribute("data-mark") === "G1R")!;
+    const g1 = byRole(roof, "plan-member").find((e) => e.getAttribute("data-plan-mark") === "G1R")!;
     expect(g1.getElementsByTagName("line")[0]!.getAttribute("stroke")).toBe(PALETTE.reaction);
-    expect(byRole(roof, "selection")[0]!.getElementsByTagName("text")[0]!.textContent).toMatch(/^Selected B2R: tributary area 240\.0 ft²; load path B2R → G1R → G3R/);
+    expect(byRole(roof, "plan-selection")[0]!.getElementsByTagName("text")[0]!.textContent).toMatch(/^Selected B2R: tributary area 240\.0 ft²; load path B2R → G1R → G3R/);
   });
 });
 
@@ -172,8 +172,8 @@ describe("framing plan drawing: text from cells is escaped", () => {
     expect(raw).not.toContain("<b>");
     expect(raw).toContain("&lt;script&gt;");
     const root = parseSvg(raw);
-    expect(byRole(root, "member").some((e) => e.getAttribute("data-mark") === HOSTILE_MARK)).toBe(true);
-    expect(byRole(root, "tributary").some((e) => e.getAttribute("data-zone") === HOSTILE_ZONE)).toBe(true);
+    expect(byRole(root, "plan-member").some((e) => e.getAttribute("data-plan-mark") === HOSTILE_MARK)).toBe(true);
+    expect(byRole(root, "plan-tributary").some((e) => e.getAttribute("data-zone") === HOSTILE_ZONE)).toBe(true);
     const allText = Array.from(root.getElementsByTagName("*")).map((e) => e.textContent ?? "").join(" ");
     expect(allText).toContain(HOSTILE_ZONE);
   });
@@ -182,8 +182,8 @@ describe("framing plan drawing: text from cells is escaped", () => {
     const raw = renderKeyPlan({ levels: ["2"], members: [{ mark: HOSTILE_MARK, type: "beam", level: "2", supports: ["G&1"] }, { mark: "G&1", type: "girder", level: "2", supports: ["C1"] }, { mark: "C1", type: "column", level: "2", supports: ["F1"] }] });
     expect(raw).not.toContain("<script");
     const root = parseSvg(raw);
-    expect(byRole(root, "key-member").map((e) => e.getAttribute("data-mark")).sort()).toEqual(["C1", "F1", "G&1", HOSTILE_MARK].sort());
-    expect(byRole(root, "bears-on").map((e) => `${e.getAttribute("data-from")}>${e.getAttribute("data-to")}`).sort()).toEqual(["C1>F1", `G&1>C1`, `${HOSTILE_MARK}>G&1`].sort());
+    expect(byRole(root, "key-member").map((e) => e.getAttribute("data-plan-mark")).sort()).toEqual(["C1", "F1", "G&1", HOSTILE_MARK].sort());
+    expect(byRole(root, "key-bears-on").map((e) => `${e.getAttribute("data-from")}>${e.getAttribute("data-to")}`).sort()).toEqual(["C1>F1", `G&1>C1`, `${HOSTILE_MARK}>G&1`].sort());
     expect(raw).toMatch(/Key plan \(schematic\)/);
   });
 });

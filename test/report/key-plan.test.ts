@@ -35,8 +35,8 @@ describe("report key plan", () => {
       if (i > 1 && text(col("mark")) !== "") rows.push({ mark: text(col("mark")), start: text(col("start support")), end: text(col("end support")) });
     });
     expect(rows.length).toBeGreaterThan(50);
-    const drawn = new Set(byRole(svg, "key-member").map((e) => e.getAttribute("data-mark")));
-    const links = new Set(byRole(svg, "bears-on").map((e) => `${e.getAttribute("data-from")}>${e.getAttribute("data-to")}`));
+    const drawn = new Set(byRole(svg, "key-member").map((e) => e.getAttribute("data-plan-mark")));
+    const links = new Set(byRole(svg, "key-bears-on").map((e) => `${e.getAttribute("data-from")}>${e.getAttribute("data-to")}`));
     for (const r of rows) {
       expect(drawn.has(r.mark), r.mark).toBe(true);
       for (const s of [r.start, r.end]) if (s !== "") expect(links.has(`${r.mark}>${s}`), `${r.mark} on ${s}`).toBe(true);
