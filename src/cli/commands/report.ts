@@ -25,8 +25,8 @@ const USAGE = `Usage: loadpath report <in.xlsx> [-o <report.html>] [--only <mark
 Writes a printable calculation report of the workbook's load takedown: a title page (project,
 job, engineer, date, units, code editions) with the contents, the load schedule (zones, loads
 per case, reducible), a schematic key plan of the levels, the code provisions used with
-their sources, the assumptions, every beam's end reactions per case, a load check per level, the column schedule, the foundation and
-wall reactions and the load balance, then a sheet for each chosen member (its loads and where
+their sources, the assumptions, every beam's end reactions per case, a load check per level,
+the column schedule, the foundation and wall reactions and the load balance, then a sheet for each chosen member (its loads and where
 each comes from, reactions, shear and moment per case and for the governing factored
 combination, live load reduction, free-body, shear and moment diagrams and its load path).
 Printed pages carry a running header (project, job, date) and "Page x of y". One HTML file with
