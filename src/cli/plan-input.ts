@@ -62,7 +62,7 @@ function framingProblem(p: FramingProblem): string {
 export async function planInputOf(workbook: XlsxWorkbook, run: PlanRun): Promise<PlanInput> {
   const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names, dates: dateCells(workbook) });
   const name = (key: PlanTableKey, fallback: string): string | undefined => run.tables[key] ?? tableOrSheet(workbook, fallback);
-  const read = async (ref: string | undefined): Promise<TableData | undefined> => (ref === undefined ? undefined : await port.readTable(ref, { dates: true }));
+  const read = async (ref: string | undefined): Promise<TableData | undefined> => (ref === undefined ? undefined : await port.readTable(ref));
   const reading = (key: PlanTableKey): TableReading => (run.mapping[key] ? { mapping: run.mapping[key] } : {});
   const framingName = name("framing", "Framing");
   if (framingName !== undefined) {
