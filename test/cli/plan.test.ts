@@ -104,6 +104,25 @@ describe("loadpath plan on a plan workbook", () => {
   });
 });
 
+describe("loadpath plan: headers of the user's own", () => {
+  it("--map renames a plan column; units shown in the headers (m) make the drawing SI", async () => {
+    const path = join(dir, "mapped.xlsx");
+    const head = ["Mark", "Type", "Level", "Start x (m)", "Y1 (m)", "X2 (m)", "Y2 (m)"];
+    await workbook(path, { Grids: GRIDS, Levels: LEVELS, Framing: [head, ...FRAMING.slice(1)], Decks: DECKS });
+    const without = await run(path);
+    expect(without.status).toBe(1);
+    expect(without.err.join("\n")).toMatch(/X1/);
+    const out = join(dir, "mapped.svg");
+    const r = await run(path, "-o", out, "--level", "2", "--map", "framing.X1=Start x");
+    expect(r.err).toEqual([]);
+    expect(r.status).toBe(0);
+    const root = parseSvg(readFileSync(out, "utf8"));
+    expect(root.getElementsByTagName("text")[1]!.textContent).toMatch(/^Coordinates in m;/);
+    const b2 = byRole(root, "plan-member").find((e) => e.getAttribute("data-plan-mark") === HOSTILE_MARK)!;
+    expect(numAttr(b2, "data-tributary-area")).toBeCloseTo(222, 9);
+  });
+});
+
 describe("loadpath plan on the sample workbooks (typed tables: key plan)", () => {
   for (const name of ["steel-office-us.xlsx", "timber-house-si.xlsx"]) {
     it(`${name}: a schematic key plan of every level and member`, async () => {
