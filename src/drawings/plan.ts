@@ -286,6 +286,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
 
   // deck edges, openings, span arrows
   const openings = decks.filter((k) => k.kind === "opening");
+  const deckLabels: { x: number; y: number; name: string; area: string }[] = [];
   for (const k of [...decks.filter((x) => x.kind !== "opening"), ...openings]) {
     const pts = points(k.corners.map(P));
     if (k.kind === "opening") {
@@ -313,8 +314,8 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     parts.push(el("g", { "data-role": "plan-deck", "data-area": k.area, "data-deck-kind": k.kind },
       title(`Deck ${k.area}: ${k.kind}${k.kind === "one-way" ? ` spanning at ${formatLength((k.span * 180) / Math.PI)}\u00B0 from +x` : ""}${k.zone !== "" ? `, zone ${k.zone}` : ""}`),
       el("polygon", { points: pts, fill: "none", stroke: PALETTE.ink, "stroke-width": 1.1, "data-role": "plan-slab-edge" }),
-      ...arrows,
-      text(cx, cy + half + 11, name, { size: FONT.small, anchor: "middle", italic: true, fill: PALETTE.muted, halo: true })));
+      ...arrows));
+    deckLabels.push({ x: cx, y: cy + half + 11, name, area: k.area });
   }
 
   // members: walls, joists, beams, girders (heavier drawn last)
@@ -371,15 +372,26 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
     if (ang <= -90) ang += 180;
     const rad = (ang * Math.PI) / 180;
     const mx = (x1 + x2) / 2, my = (y1 + y2) / 2;
-    // text sits just above the line (on the side of the page's up direction of the rotated text)
+    // text just above the line (in the rotated text's frame), else just below it
     const off = m.type === "wall" ? WALL_GAP / 2 + 3 : 3;
-    const tx = mx + Math.sin(rad) * off, ty = my - Math.cos(rad) * off;
-    const corners = [[-w / 2, 0], [w / 2, 0], [w / 2, -size], [-w / 2, -size]].map(([a, b]) => [tx + a! * Math.cos(rad) - b! * Math.sin(rad), ty + a! * Math.sin(rad) + b! * Math.cos(rad)] as const);
-    const box = { x0: Math.min(...corners.map((p) => p[0])), x1: Math.max(...corners.map((p) => p[0])), y0: Math.min(...corners.map((p) => p[1])), y1: Math.max(...corners.map((p) => p[1])) };
-    if (labels.some((b) => boxesOverlap(b, box))) continue;
+    const place = [-off, off + size * 0.8].map((dn) => {
+      const tx = mx - Math.sin(rad) * dn, ty = my + Math.cos(rad) * dn;
+      const corners = [[-w / 2, 0], [w / 2, 0], [w / 2, -size], [-w / 2, -size]].map(([a, b]) => [tx + a! * Math.cos(rad) - b! * Math.sin(rad), ty + a! * Math.sin(rad) + b! * Math.cos(rad)] as const);
+      return { tx, ty, box: { x0: Math.min(...corners.map((p) => p[0])), x1: Math.max(...corners.map((p) => p[0])), y0: Math.min(...corners.map((p) => p[1])), y1: Math.max(...corners.map((p) => p[1])) } };
+    }).find((c) => !labels.some((b) => boxesOverlap(b, c.box)));
+    if (!place) continue;
+    const { tx, ty, box } = place;
     labels.push(box);
     const fill = m.mark === selected ? PALETTE.load : onPath.has(m.mark) ? PALETTE.reaction : PALETTE.ink;
     labelParts.push(text(0, 0, t, { size, anchor: "middle", bold: m.type === "girder", fill, halo: true }, { transform: `translate(${num(tx)},${num(ty)}) rotate(${num(ang)})`, "data-role": "plan-member-label", "data-plan-mark": m.mark }));
+  }
+  // deck names last, where they do not crowd a mark (the deck's title always names it)
+  for (const dl of deckLabels) {
+    const w = textWidth(dl.name, FONT.small) + 2;
+    const box = { x0: dl.x - w / 2, x1: dl.x + w / 2, y0: dl.y - FONT.small, y1: dl.y + 2 };
+    if (labels.some((b) => boxesOverlap(b, box))) continue;
+    labels.push(box);
+    labelParts.push(text(dl.x, dl.y, dl.name, { size: FONT.small, anchor: "middle", italic: true, fill: PALETTE.muted, halo: true }, { "data-role": "plan-deck-label", "data-area": dl.area }));
   }
   parts.push(el("g", {}, ...labelParts));
 

@@ -13,6 +13,26 @@ import { planPage } from "../../src/cli/commands/plan";
 import { renderFramingPlan } from "../../src/drawings/plan";
 import { CHROMIUM, launch } from "../browser/harness";
 import { fixtureModel, HOSTILE_MARK } from "./plan-fixture";
+import { derive, readPlan } from "../../src/engine/framing";
+import type { CellValue } from "../../src/engine/takedown/types";
+
+/** A dense invented level: 10 x 6 bays of 30 x 24 ft, 5 infill beams a bay, 513 members and columns. */
+function denseModel() {
+  const f: CellValue[][] = [["Mark", "Type", "Level", "X1", "Y1", "X2", "Y2"]];
+  const d: CellValue[][] = [["Area", "Level", "Kind", "Zone", "Span", "X1", "Y1", "X2", "Y2"]];
+  for (let i = 0; i <= 10; i++) for (let j = 0; j <= 6; j++) f.push([`C${i}.${j}`, "column", "L1", i * 30, j * 24]);
+  for (let i = 0; i <= 10; i++) for (let j = 0; j < 6; j++) f.push([`G${i}.${j}`, "girder", "L1", i * 30, j * 24, i * 30, (j + 1) * 24]);
+  for (let i = 0; i < 10; i++) {
+    for (let j = 0; j <= 6; j++) f.push([`E${i}.${j}`, "beam", "L1", i * 30, j * 24, (i + 1) * 30, j * 24]);
+    for (let j = 0; j < 6; j++) {
+      for (let k = 1; k <= 5; k++) f.push([`B${i}.${j}.${k}`, "beam", "L1", i * 30, j * 24 + k * 4, (i + 1) * 30, j * 24 + k * 4]);
+      d.push([`D${i}.${j}`, "L1", "one-way", "Office", "y", i * 30, j * 24, (i + 1) * 30, (j + 1) * 24]);
+    }
+  }
+  const t = (sheet: string, values: CellValue[][]) => ({ sheet, top: 0, left: 0, values });
+  const r = readPlan({ framing: t("Framing", f), decks: t("Decks", d), levels: t("Levels", [["Level", "Elevation"], ["L1", 13]]) });
+  return { plan: r.plan, grids: r.grids, derivation: derive(r.plan), units: "US" as const };
+}
 
 const OUT = resolve(__dirname, "..", "..", "test-output", "drawings");
 const model = fixtureModel();
@@ -61,7 +81,7 @@ async function inspect(page: Page, html: string): Promise<Seen> {
       const mark = p.getAttribute("data-plan-mark") ?? "";
       areas[mark] = (areas[mark] ?? 0) + Math.abs(a) / 2;
     }
-    const labels = Array.from(root.querySelectorAll('[data-role="plan-member-label"], [data-role="plan-column-label"], [data-role="plan-grid-name"]')).map((t) => ({ text: t.textContent ?? "", box: t.getBoundingClientRect() }));
+    const labels = Array.from(root.querySelectorAll('[data-role="plan-member-label"], [data-role="plan-column-label"], [data-role="plan-grid-name"], [data-role="plan-deck-label"]')).map((t) => ({ text: t.textContent ?? "", box: t.getBoundingClientRect() }));
     const overlaps: string[] = [];
     labels.forEach((a, i) => {
       for (const b of labels.slice(0, i)) {
@@ -105,6 +125,18 @@ describe.skipIf(missing !== null)("framing plan in Chromium", () => {
     }
     expect(seen.overlaps).toEqual([]);
     await page.locator("svg").first().screenshot({ path: resolve(OUT, "plan-level-2.png") });
+  });
+
+  it("a dense level (513 members and columns): labels that would crowd are left to the tooltips, none overlap", async () => {
+    await page.setViewportSize({ width: 1000, height: 900 });
+    const dense = denseModel();
+    expect(dense.derivation.problems).toEqual([]);
+    const seen = await inspect(page, `<!doctype html><html><body style="margin:0;width:1000px">${renderFramingPlan(dense, "L1")}</body></html>`);
+    expect(seen.errors).toEqual([]);
+    expect(seen.overlaps).toEqual([]);
+    // every member and column still carries its mark in a title
+    for (const m of dense.derivation.members.filter((x) => x.type !== "foundation")) expect(seen.titles.some((t) => t.startsWith(`${m.mark} (`) || t.startsWith(`Column ${m.mark}`)), m.mark).toBe(true);
+    await page.locator("svg").screenshot({ path: resolve(OUT, "plan-dense.png") });
   });
 
   it("a 320 px wide pane shows the same drawing scaled, without errors", async () => {
