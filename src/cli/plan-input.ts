@@ -12,6 +12,7 @@ import type { TableData, UnitSystem } from "../engine/takedown/types";
 import type { FramingPlanModel } from "../drawings/plan";
 import { keyPlanOfModel, type KeyPlanInput } from "../drawings/key-plan";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
+import type { WorkbookPort } from "../workbook/port";
 import { sheetRef } from "../workbook/a1";
 import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
 import { tableOrSheet, unitsShownByHeaders } from "./takedown-input";
@@ -57,10 +58,11 @@ function framingProblem(p: FramingProblem): string {
  * Read what to draw from a workbook.
  * @param workbook - the workbook read
  * @param run - table names, mappings, unit system
+ * @param given - a port over the same workbook already built (else one is made)
  * @throws Error naming the file's missing table when it has neither a Framing nor a Members table
  */
-export async function planInputOf(workbook: XlsxWorkbook, run: PlanRun): Promise<PlanInput> {
-  const port = await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names, dates: dateCells(workbook) });
+export async function planInputOf(workbook: XlsxWorkbook, run: PlanRun, given?: WorkbookPort): Promise<PlanInput> {
+  const port = given ?? (await MemoryWorkbookPort.create({ sheets: engineSheets(workbook), tables: workbook.tables.map((t) => ({ name: t.name, sheet: t.sheet, ref: t.ref })), names: workbook.names, dates: dateCells(workbook) }));
   const name = (key: PlanTableKey, fallback: string): string | undefined => run.tables[key] ?? tableOrSheet(workbook, fallback);
   const read = async (ref: string | undefined): Promise<TableData | undefined> => (ref === undefined ? undefined : await port.readTable(ref));
   const reading = (key: PlanTableKey): TableReading => (run.mapping[key] ? { mapping: run.mapping[key] } : {});

@@ -43,3 +43,36 @@ describe("report key plan", () => {
     }
   });
 });
+
+describe("report key plan from a framing plan", () => {
+  it("a workbook holding a framing plan beside its member tables gets each level's framing plan", async () => {
+    const { DECKS, FRAMING, GRIDS, LEVELS } = await import("../drawings/plan-fixture");
+    const dir = mkdtempSync(join(tmpdir(), "loadpath-keyplan-"));
+    const path = join(dir, "both.xlsx");
+    const wb = new ExcelJS.Workbook();
+    const sheets: Record<string, (string | number | null)[][]> = {
+      Zones: [["Zone", "D", "L"], ["Office", 50, 50]],
+      // one beam on two columns (the typed tables the takedown reads)
+      Members: [["Mark", "Type", "Level", "Span", "Zone", "Trib", "Start support", "End support"], ["B1", "beam", "2", 24, "Office", 10, "C1", "C2"], ["C1", "column", "2", 12, null, null, "F1", null], ["C2", "column", "2", 12, null, null, "F2", null], ["F1", "foundation", null, null, null, null, null, null], ["F2", "foundation", null, null, null, null, null, null]],
+      Grids: GRIDS as (string | number | null)[][],
+      Levels: LEVELS as (string | number | null)[][],
+      Framing: FRAMING as (string | number | null)[][],
+      Decks: DECKS as (string | number | null)[][],
+    };
+    for (const [name, rows] of Object.entries(sheets)) {
+      const ws = wb.addWorksheet(name);
+      rows.forEach((r, i) => (ws.getRow(i + 1).values = r.map((v) => (v === null ? undefined : v)) as ExcelJS.CellValue[]));
+    }
+    await wb.xlsx.writeFile(path);
+    const out = join(dir, "r.html");
+    const err: string[] = [];
+    const status = await main(["report", path, "-o", out, "--summary"], { out: () => undefined, err: (l) => void err.push(l) });
+    expect(err).toEqual([]);
+    expect(status).toBe(0);
+    const html = readFileSync(out, "utf8");
+    const levels = [...html.matchAll(/data-role="key-plan-level" data-plan-level="([^"]+)"/g)].map((m) => m[1]);
+    expect(levels).toEqual(["Roof", "2"]);
+    expect(html).toContain('data-role="framing-plan"');
+    expect(html).not.toContain('data-role="key-plan"');
+  });
+});

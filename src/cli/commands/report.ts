@@ -12,7 +12,8 @@ import { collectTakedown, renderReport, type TakedownRecord } from "../../report
 import { writeTextAtomically } from "../../workbook/files";
 import type { XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
-import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
+import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, tableOrSheet, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
+import { planInputOf } from "../plan-input";
 import type { DemoPart } from "./demo";
 import { describeTakedownProblem } from "./takedown";
 
@@ -135,7 +136,13 @@ export async function reportOfFile(input: string, run: TakedownRun, report: Repo
     io.err(`loadpath report: not in the takedown: ${unknown.join(", ")} (a mark of the Members table, spelled as there, not left out by a problem).`);
     return { status: EXIT.usage };
   }
+  // a workbook that also holds a framing plan gets its levels drawn as the report's key plan
+  const framingName = tableOrSheet(workbook, "Framing");
+  const plan = framingName !== undefined && framingName.toLowerCase() !== options.members.toLowerCase() ? await planInputOf(workbook, { tables: {}, mapping: {}, units: options.units }, port) : undefined;
+  const drawPlan = plan?.kind === "framing" && plan.problems.length === 0 && plan.model.derivation.members.length > 0;
+  if (plan?.kind === "framing" && !drawPlan) io.err(`loadpath report: the ${framingName} table does not derive cleanly (loadpath plan lists why); the report shows the schematic key plan instead.`);
   const html = renderReport({
+    ...(drawPlan ? { framing: plan.model } : {}),
     record,
     project: report.project ?? projectName(workbook, input),
     sourceFile: basename(input),
