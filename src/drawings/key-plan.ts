@@ -62,9 +62,20 @@ interface Chip {
  * Draw the schematic key plan.
  * @param input - levels top down and the members with what they bear on
  * @param width - least width in drawing units (default 720); wider when a row needs it
+ * @param selected - a member whose box and load path (down to the foundations) are highlighted
  */
-export function renderKeyPlan(input: KeyPlanInput, width = 720): string {
+export function renderKeyPlan(input: KeyPlanInput, width = 720, selected?: string): string {
   const byMark = new Map(input.members.map((m) => [m.mark, m]));
+  // the selected member's load path: what it bears on, and what those bear on
+  const path = new Set<string>();
+  const queue = selected !== undefined && byMark.has(selected) ? [selected] : [];
+  while (queue.length > 0) {
+    for (const s of byMark.get(queue.shift()!)?.supports ?? []) {
+      if (path.has(s) || s === selected) continue;
+      path.add(s);
+      queue.push(s);
+    }
+  }
   const members = [...input.members];
   // supports named but not in the table (a foundation named only as a support) get a box too
   for (const m of input.members)
@@ -152,26 +163,28 @@ export function renderKeyPlan(input: KeyPlanInput, width = 720): string {
     for (const s of c.m.supports) {
       const t = chips.get(s);
       if (!t) continue;
-      links.push(line(c.x + c.w / 2, c.y + CHIP_H, t.x + t.w / 2, t.y, c.m.type === "column" ? PALETTE.ink : PALETTE.guide, c.m.type === "column" ? 1.2 : 0.8, { "data-role": "key-bears-on", "data-from": c.m.mark, "data-to": s }));
+      const lit = (c.m.mark === selected || path.has(c.m.mark)) && path.has(s);
+      links.push(line(c.x + c.w / 2, c.y + CHIP_H, t.x + t.w / 2, t.y, lit ? PALETTE.reaction : c.m.type === "column" ? PALETTE.ink : PALETTE.guide, lit ? 1.8 : c.m.type === "column" ? 1.2 : 0.8, { "data-role": "key-bears-on", "data-from": c.m.mark, "data-to": s }));
     }
   const boxes: string[] = [];
   for (const c of chips.values()) {
     const t = c.m.type;
     const dark = t === "column";
+    const accent = c.m.mark === selected ? PALETTE.load : path.has(c.m.mark) ? PALETTE.reaction : undefined;
     const box = el("rect", {
       x: c.x,
       y: c.y,
       width: c.w,
       height: CHIP_H,
       rx: t === "foundation" ? 0 : 3,
-      fill: dark ? PALETTE.ink : t === "wall" ? PALETTE.fill : PALETTE.paper,
-      stroke: PALETTE.ink,
+      fill: accent !== undefined && dark ? accent : dark ? PALETTE.ink : c.m.mark === selected ? PALETTE.loadFill : path.has(c.m.mark) ? PALETTE.reactionFill : t === "wall" ? PALETTE.fill : PALETTE.paper,
+      stroke: accent ?? PALETTE.ink,
       "stroke-width": t === "girder" ? 2 : t === "joist" ? 0.6 : 1,
       "stroke-dasharray": t === "joist" || t === "foundation" ? "3 2" : undefined,
     });
     const label = text(c.x + c.w / 2, c.y + 11, truncate(c.m.mark, 14), { size: FONT.small, anchor: "middle", bold: t === "girder", fill: dark ? PALETTE.paper : PALETTE.ink });
     const tip = `<title>${escapeXml(`${c.m.mark} (${t})${c.m.supports.length > 0 ? `: bears on ${c.m.supports.join(", ")}` : ""}`)}</title>`;
-    boxes.push(el("g", { "data-role": "key-member", "data-plan-mark": c.m.mark, "data-type": t, "data-plan-level": c.m.level }, tip, box, label));
+    boxes.push(el("g", { "data-role": "key-member", "data-plan-mark": c.m.mark, "data-type": t, "data-plan-level": c.m.level, "data-highlight": c.m.mark === selected ? "selected" : path.has(c.m.mark) ? "path" : undefined }, tip, box, label));
   }
   const head = text(8, 16, "Key plan (schematic): levels, members and what each bears on", { size: FONT.title, bold: true });
   const sub = text(8, 31, "Not to scale: the member tables give no positions. A line runs from each member to what it bears on.", { size: FONT.small, fill: PALETTE.muted });

@@ -186,4 +186,12 @@ describe("framing plan drawing: text from cells is escaped", () => {
     expect(byRole(root, "key-bears-on").map((e) => `${e.getAttribute("data-from")}>${e.getAttribute("data-to")}`).sort()).toEqual(["C1>F1", `G&1>C1`, `${HOSTILE_MARK}>G&1`].sort());
     expect(raw).toMatch(/Key plan \(schematic\)/);
   });
+
+  it("the key plan highlights a selected member and its path to the foundation", () => {
+    const input = { levels: ["2"], members: [{ mark: "B1", type: "beam" as const, level: "2", supports: ["G1"] }, { mark: "B2", type: "beam" as const, level: "2", supports: ["G2"] }, { mark: "G1", type: "girder" as const, level: "2", supports: ["C1"] }, { mark: "G2", type: "girder" as const, level: "2", supports: ["C2"] }, { mark: "C1", type: "column" as const, level: "2", supports: ["F1"] }, { mark: "C2", type: "column" as const, level: "2", supports: ["F2"] }] };
+    const root = parseSvg(renderKeyPlan(input, 720, "B1"));
+    const lit = Object.fromEntries(byRole(root, "key-member").map((e) => [e.getAttribute("data-plan-mark"), e.getAttribute("data-highlight") || "none"]));
+    // B1 -> G1 -> C1 -> F1 (what each bears on, by hand); B2's path stays plain
+    expect(lit).toEqual({ B1: "selected", G1: "path", C1: "path", F1: "path", B2: "none", G2: "none", C2: "none", F2: "none" });
+  });
 });

@@ -60,7 +60,7 @@ export function drawingsOf(input: PlanInput, level: string | undefined, selected
     return levels.map((l) => ({ heading: `Level ${l}`, svg: renderFramingPlan(input.model, l, opts) }));
   }
   const keyInput = level !== undefined ? { levels: [level], members: input.input.members.filter((m) => m.level === level) } : input.input;
-  return [{ heading: "Key plan (schematic)", svg: renderKeyPlan(keyInput) }];
+  return [{ heading: "Key plan (schematic)", svg: renderKeyPlan(keyInput, 720, selected) }];
 }
 
 /** Levels that can be drawn. */
@@ -142,7 +142,7 @@ const plan: Command = {
         io.err(`loadpath plan: --select "${selected}" is not a member of the plan (a Mark of the ${read.kind === "framing" ? "Framing" : "Members"} table, spelled as there).`);
         return EXIT.usage;
       }
-      const drawn = drawingsOf(read, level, read.kind === "framing" ? selected : undefined);
+      const drawn = drawingsOf(read, level, selected);
       const status = read.problems.length > 0 ? EXIT.failed : EXIT.ok;
       const what = read.kind === "framing" ? `Framing plan of ${drawn.length} level(s) (${read.model.derivation.members.length} members and columns)` : `Schematic key plan of ${read.input.levels.length} level(s) (${read.input.members.length} members; typed tables, no Framing table)`;
       if (output === undefined) {
