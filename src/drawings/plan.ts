@@ -11,7 +11,7 @@
  * so tests and tools can read the drawing back.
  */
 import type { Derivation, DerivedMember, Plan, Point, TributaryRegion } from "../engine/framing/types";
-import { interiorPoint } from "../engine/framing/geometry";
+import { interiorPoint, signedArea, strictlyInside } from "../engine/framing/geometry";
 import { escapeXml, truncate } from "./escape";
 import { formatLength, formatQuantity } from "./format";
 import { wrapText } from "./labels";
@@ -131,18 +131,10 @@ function tintsOf(regions: readonly TributaryRegion[], eps: number): Map<string, 
   return tint;
 }
 
-function area(poly: readonly Point[]): number {
-  let s = 0;
-  for (let i = 0; i < poly.length; i++) {
-    const a = poly[i]!, b = poly[(i + 1) % poly.length]!;
-    s += a.x * b.y - b.x * a.y;
-  }
-  return s / 2;
-}
 
 /** The area centroid of a polygon when it lies inside it, else a point surely inside (an ear's centroid). */
 function centroidInside(poly: readonly Point[]): Point {
-  const a = area(poly);
+  const a = signedArea(poly);
   let cx = 0, cy = 0;
   for (let i = 0; i < poly.length; i++) {
     const p = poly[i]!, q = poly[(i + 1) % poly.length]!;
@@ -151,12 +143,7 @@ function centroidInside(poly: readonly Point[]): Point {
     cy += (p.y + q.y) * f;
   }
   const c = { x: cx / (6 * a), y: cy / (6 * a) };
-  let inside = false;
-  for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-    const p = poly[i]!, q = poly[j]!;
-    if (p.y > c.y !== q.y > c.y && c.x < p.x + ((c.y - p.y) * (q.x - p.x)) / (q.y - p.y)) inside = !inside;
-  }
-  return Number.isFinite(c.x) && Number.isFinite(c.y) && inside ? c : interiorPoint(poly);
+  return Number.isFinite(c.x) && Number.isFinite(c.y) && strictlyInside(c, poly, 0) ? c : interiorPoint(poly);
 }
 
 function segmentDistance(p: Point, a: Point, b: Point): number {
@@ -166,14 +153,7 @@ function segmentDistance(p: Point, a: Point, b: Point): number {
   return Math.hypot(p.x - a.x - t * dx, p.y - a.y - t * dy);
 }
 
-function inside(p: Point, poly: readonly Point[]): boolean {
-  let k = false;
-  for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-    const a = poly[i]!, b = poly[j]!;
-    if (a.y > p.y !== b.y > p.y && p.x < a.x + ((p.y - a.y) * (b.x - a.x)) / (b.y - a.y)) k = !k;
-  }
-  return k;
-}
+const inside = (p: Point, poly: readonly Point[]): boolean => strictlyInside(p, poly, 0);
 
 /** Clearance of a point inside a deck: distance to the deck's edges and to its level's openings (0 inside one). */
 function clearance(p: Point, deck: readonly Point[], openings: readonly (readonly Point[])[]): number {
@@ -267,7 +247,7 @@ export function renderFramingPlan(model: FramingPlanModel, level: string, option
       "data-zone": r.zone,
       "data-area": r.area,
       "data-plan": r.polygon.map((p) => `${p.x},${p.y}`).join(" "),
-    }, title(`${r.mark}: deck ${r.area}${r.zone !== "" ? `, zone ${r.zone}` : ""}, ${formatQuantity(area(r.polygon), "area", "-")} ${areaUnit} of this piece`));
+    }, title(`${r.mark}: deck ${r.area}${r.zone !== "" ? `, zone ${r.zone}` : ""}, ${formatQuantity(signedArea(r.polygon), "area", "-")} ${areaUnit} of this piece`));
   });
   parts.push(el("g", { "data-role": "plan-tributaries" }, ...regionMarkup));
 
