@@ -82,7 +82,7 @@ export function planPage(title: string, drawn: readonly Drawn[], problems: reado
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">
 <title>${e(`Framing plans: ${title}`)}</title>
-<style>body{font-family:Arial,Helvetica,sans-serif;margin:16px;color:#1f2328;max-width:1100px}h1{font-size:18px}h2{font-size:15px;margin:18px 0 6px}.problems li{color:#b42318;font-size:13px}.level{break-inside:avoid;page-break-inside:avoid}.note{color:#6b7280;font-size:12px}svg{max-width:100%;height:auto}</style>
+<style>body{font-family:Arial,Helvetica,sans-serif;margin:16px;color:#1f2328;max-width:1100px}h1{font-size:18px}h2{font-size:15px;margin:18px 0 6px}.problems li{color:#b42318;font-size:13px}.level{break-inside:avoid;page-break-inside:avoid}.note{color:#6b7280;font-size:12px}svg{max-width:100%;height:auto}@media print{.level+.level{break-before:page;page-break-before:always}}</style>
 </head><body>
 <h1>${e(`Framing plans: ${title}`)}</h1>
 <p class="note">${e(REVIEW_NOTICE)} Hover over a member, column or shaded area for its details.</p>
