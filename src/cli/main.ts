@@ -17,6 +17,7 @@ export const VERBS: Readonly<Record<string, () => Promise<{ default: Command }>>
   takedown: () => import(/* webpackMode: "eager" */ "./commands/takedown"),
   export: () => import(/* webpackMode: "eager" */ "./commands/export"),
   report: () => import(/* webpackMode: "eager" */ "./commands/report"),
+  plan: () => import(/* webpackMode: "eager" */ "./commands/plan"),
 };
 
 async function help(io: CliIO): Promise<void> {
@@ -30,6 +31,8 @@ async function help(io: CliIO): Promise<void> {
   io.out("Table options (takedown, report, export): --zones --members --loads name a table;");
   io.out("--map renames a column; --units US|SI (default: from the header units, else US);");
   io.out("--sheet names the generated sheet; --replace replaces a same-named sheet of yours.");
+  io.out("plan also takes --grids --levels --framing --decks (a framing plan) and draws the");
+  io.out("plan of each level, or a schematic key plan of typed tables.");
   io.out("Without -o a verb checks only and writes nothing. Exit status: 0 done, 1 problems found");
   io.out("(what could be built is still written), 2 usage or file errors (nothing written).");
   io.out("Everything is described in docs/interface.md.");

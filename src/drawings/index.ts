@@ -4,9 +4,13 @@
  *
  * - {@link renderMemberSheet}: free-body diagram + shear + moment (+ deflected shape).
  * - {@link renderLoadPath}: what a member carries and where its reactions go.
+ * - {@link renderFramingPlan}: a level's framing plan from the derived plan (tributary regions shaded).
+ * - {@link renderKeyPlan}: a schematic key plan of typed member tables (levels and column stacks).
  */
 export { renderMemberSheet } from "./sheet";
 export { renderLoadPath, MAX_ROWS_PER_SIDE } from "./load-path";
+export { renderFramingPlan, planLevels, loadPathOf, type FramingPlanModel, type FramingPlanOptions } from "./plan";
+export { renderKeyPlan, keyPlanOfModel, type KeyPlanInput, type KeyPlanMember } from "./key-plan";
 export { solveDrawing, toBeamModel } from "./model";
 export { escapeXml } from "./escape";
 export { formatLength, formatValue, parseDrawnNumber } from "./format";

@@ -8,10 +8,12 @@ import { isFlexural } from "../engine/takedown/model";
 import { RESULT_UNITS } from "../engine/takedown/units";
 import type { TakedownRecord } from "./collect";
 import { levelCheckTable, loadSchedule, provisionsTable, reactionSummary } from "./building";
-import { children, el, join, type Child, type Html } from "./html";
+import { children, el, join, raw, type Child, type Html } from "./html";
 import { contentsLine, memberSection, sectionId } from "./member-section";
 import { balanceTable, columnSchedule, foundationTable, problemList } from "./schedule";
 import { assumptions, CODE_EDITIONS, REPORT_CAUTION } from "./text";
+import { keyPlanOfModel, renderKeyPlan } from "../drawings/key-plan";
+import { planLevels, renderFramingPlan, type FramingPlanModel } from "../drawings/plan";
 
 /** What a report is made of. */
 export interface ReportInput {
@@ -30,6 +32,15 @@ export interface ReportInput {
   readonly job?: string;
   /** Tables only: no per-member sheets (`--summary`). */
   readonly summary?: boolean;
+  /** The framing plan the takedown was derived from, if any: its levels are drawn instead of the schematic key plan. */
+  readonly framing?: FramingPlanModel;
+}
+
+/** The key plan part: each level's framing plan when the takedown comes from a plan, else the schematic key plan. */
+function keyPlans(input: ReportInput): Html {
+  const f = input.framing;
+  if (f) return join([...planLevels(f)].reverse().map((l) => el("figure", { class: "plan", "data-role": "key-plan-level", "data-plan-level": l }, raw(renderFramingPlan(f, l)))));
+  return el("figure", { class: "plan", "data-role": "key-plan-level" }, raw(renderKeyPlan(keyPlanOfModel(input.record.model, input.record.levels))));
 }
 
 /** The Content-Security-Policy of every report: nothing may be loaded. */
@@ -88,6 +99,7 @@ tr[data-role="level-total"] td, tr[data-role="level-total"] th { border-top: 1.5
 .figures { font-size: 0; orphans: 1; widows: 1; }
 figure.drawing { display: inline-block; vertical-align: top; margin: 0 4mm 3mm 0; width: 84mm; max-width: 100%; break-inside: avoid; page-break-inside: avoid; font-size: 9.5pt; }
 figure.drawing:nth-child(2n) { margin-right: 0; }
+figure.plan { display: block; width: 100%; margin: 0 0 4mm; break-inside: avoid; page-break-inside: avoid; }
 svg { display: block; max-width: 100%; height: auto; }
 .note { color: #4b5563; font-size: 8.5pt; }
 .problems li { color: #b91c1c; }
@@ -205,6 +217,7 @@ export function renderReport(input: ReportInput): string {
   const parts: Part[] = [];
   const add = (id: string, title: string, ...content: Child[]): void => void parts.push({ id, title, content: join(content) });
   add("load-schedule", "Load schedule", el("p", { class: "note" }, `The Zones table as read: area loads per case (a dash: the case does not act on the zone) and whether the zone's live load may be reduced (ASCE/SEI 7-22 Sec. 4.7).`), loadSchedule(record));
+  add("key-plan", "Key plan", el("p", { class: "note" }, input.framing ? "The framing plan of each level as derived: members by type, columns, decks with their span, each member's tributary area shaded." : "Schematic, not to scale: each level's members and what each bears on, the columns of a stack in one line."), keyPlans(input));
   add("provisions", "Code provisions used", provisionsTable(record));
   add("assumptions", "Assumptions and methods", el("ul", {}, ...assumptions(record.model.units).map((a) => el("li", {}, a))));
   if (reactions) add("reactions", "Beam end reactions", el("p", { class: "note" }, "Every beam, girder and joist: the vertical reaction at each end per load case, unfactored, live load not reduced (up +), and the member or column each end bears on: the loads its connections transfer."), reactions);

@@ -12,7 +12,8 @@ import { collectTakedown, renderReport, type TakedownRecord } from "../../report
 import { writeTextAtomically } from "../../workbook/files";
 import type { XlsxWorkbook } from "../../workbook/xlsx";
 import { EXIT, outputsRefused, parseVerbArgs, singleInput, usageOnThrow, type CliIO, type Command } from "../shared";
-import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
+import { runOfOptions, TABLE_OPTIONS_USAGE, tableOptions, tableOrSheet, takedownOfFile, unitsHint, type TakedownRun } from "../takedown-input";
+import { planInputOf } from "../plan-input";
 import type { DemoPart } from "./demo";
 import { describeTakedownProblem } from "./takedown";
 
@@ -24,9 +25,9 @@ const USAGE = `Usage: loadpath report <in.xlsx> [-o <report.html>] [--only <mark
 
 Writes a printable calculation report of the workbook's load takedown: a title page (project,
 job, engineer, date, units, code editions) with the contents, the load schedule (zones, loads
-per case, reducible), the code provisions used with their sources, the assumptions, every
-beam's end reactions per case, a load check per level, the column schedule, the foundation and
-wall reactions and the load balance, then a sheet for each chosen member (its loads and where
+per case, reducible), a schematic key plan of the levels, the code provisions used with
+their sources, the assumptions, every beam's end reactions per case, a load check per level,
+the column schedule, the foundation and wall reactions and the load balance, then a sheet for each chosen member (its loads and where
 each comes from, reactions, shear and moment per case and for the governing factored
 combination, live load reduction, free-body, shear and moment diagrams and its load path).
 Printed pages carry a running header (project, job, date) and "Page x of y". One HTML file with
@@ -135,7 +136,13 @@ export async function reportOfFile(input: string, run: TakedownRun, report: Repo
     io.err(`loadpath report: not in the takedown: ${unknown.join(", ")} (a mark of the Members table, spelled as there, not left out by a problem).`);
     return { status: EXIT.usage };
   }
+  // a workbook that also holds a framing plan gets its levels drawn as the report's key plan
+  const framingName = tableOrSheet(workbook, "Framing");
+  const plan = framingName !== undefined && framingName.toLowerCase() !== options.members.toLowerCase() ? await planInputOf(workbook, { tables: {}, mapping: {}, units: options.units }, port) : undefined;
+  const drawPlan = plan?.kind === "framing" && plan.problems.length === 0 && plan.model.derivation.members.length > 0;
+  if (plan?.kind === "framing" && !drawPlan) io.err(`loadpath report: the ${framingName} table does not derive cleanly (loadpath plan lists why); the report shows the schematic key plan instead.`);
   const html = renderReport({
+    ...(drawPlan ? { framing: plan.model } : {}),
     record,
     project: report.project ?? projectName(workbook, input),
     sourceFile: basename(input),

@@ -12,7 +12,7 @@ import { readPlan, type PlanReadings, type PlanTables } from "./read";
 import { snapPoints } from "./snap";
 import { SegmentGrid } from "./spatial";
 import { twoWayPanel } from "./twoway";
-import { RANK, type Derivation, type DerivedBearing, type DerivedMember, type DeriveOptions, type FramingProblem, type FramingProblemCode, type Plan, type PlanMember, type Point, type TributaryPiece } from "./types";
+import { RANK, type Derivation, type DerivedBearing, type DerivedMember, type DeriveOptions, type FramingProblem, type FramingProblemCode, type Plan, type PlanMember, type Point, type TributaryPiece, type TributaryRegion } from "./types";
 
 /** Default snapping tolerance: 1/16 in in ft (US) or 1.5 mm in m (SI). */
 export const DEFAULT_TOLERANCE = { US: 1 / 16 / 12, SI: 0.0015 } as const;
@@ -221,6 +221,7 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
 
   // decks, level by level, in order of area name
   const pieces = new Map<string, TributaryPiece[]>();
+  const regions: TributaryRegion[] = [];
   const decks = snappedDecks;
   const loaded = decks.filter((d) => d.kind !== "opening");
   const box = (d: (typeof loaded)[number]): [number, number, number, number] => {
@@ -255,12 +256,16 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
         continue;
       }
       const r = twoWayPanel(d, members, tol);
-      if (r.ok) add(r.pieces);
+      if (r.ok) {
+        add(r.pieces);
+        regions.push(...r.regions);
+      }
       else problems.push(problem(d.cells.shape, "badTwoWay", `Two-way deck ${d.area} ${r.message}.`));
       continue;
     }
     const r = oneWayDeck(d, openings, members, tol);
     add(r.pieces);
+    regions.push(...r.regions);
     if (r.unsupported) problems.push(problem(d.cells.shape, "unsupportedDeck", `Deck ${d.area} has strips with no supporting member across them (in its span direction): that deck carries no load anywhere.`));
   }
   const members = [...out, ...added].map((m) => {
@@ -270,7 +275,11 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     const tributaryArea = tributary.reduce((s, p) => s + ((p.to - p.from) * (p.width + p.endWidth)) / 2, 0);
     return { ...m, tributary, tributaryArea };
   });
-  return { members, bearings, problems, tolerance: tol };
+  // regions of members that are in the result (a zero-length member receives none), by mark then deck
+  const kept = new Set(members.map((m) => m.mark));
+  const ordered = regions.filter((r) => kept.has(r.mark)).map((r, i) => ({ r, i }));
+  ordered.sort((p, q) => (p.r.mark < q.r.mark ? -1 : p.r.mark > q.r.mark ? 1 : p.i - q.i));
+  return { members, bearings, problems, regions: ordered.map((o) => o.r), tolerance: tol };
 }
 
 /**

@@ -6,7 +6,7 @@
  * member goes to that member, and each member's share is a linear function of v: its load is
  * piecewise linear along it. Openings are cut from the strips as intervals; no polygon clipping.
  */
-import type { PlanDeck, Point, TributaryPiece } from "./types";
+import type { PlanDeck, Point, TributaryPiece, TributaryRegion } from "./types";
 import { crossing } from "./geometry";
 
 /** A spanning member as the deck sees it: mark, snapped ends (ft or m). */
@@ -27,6 +27,8 @@ interface Line {
 /** A deck piece of one member, and whether some strip of the deck had no member. */
 export interface OneWayResult {
   readonly pieces: ReadonlyMap<string, TributaryPiece[]>;
+  /** The region of deck behind each piece, in the same order as the pieces are found. */
+  readonly regions: readonly TributaryRegion[];
   readonly unsupported: boolean;
 }
 
@@ -94,6 +96,8 @@ function subtract(keep: [Line, Line][], cut: [Line, Line][], v: number): [Line, 
 export function oneWayDeck(deck: PlanDeck, openings: readonly (readonly Point[])[], members: readonly DeckMember[], tol: number): OneWayResult {
   const { c, s } = direction(deck.span);
   const toUV = (p: Point): { u: number; v: number } => ({ u: p.x * c + p.y * s, v: -p.x * s + p.y * c });
+  const toXY = (u: number, v: number): Point => ({ x: u * c - v * s, y: u * s + v * c });
+  const regions: TributaryRegion[] = [];
   const deckEdges = edgesOf(deck.corners, toUV);
   const cuts = openings.map((o) => edgesOf(o, toUV));
   const vs = deck.corners.map((p) => toUV(p).v);
@@ -166,8 +170,10 @@ export function oneWayDeck(deck: PlanDeck, openings: readonly (readonly Point[])
         const list = pieces.get(x.m.mark) ?? [];
         list.push({ zone: deck.zone, area: deck.area, from, to, width: w0, endWidth: w1 });
         pieces.set(x.m.mark, list);
+        // the deck behind the piece: between left(v) and right(v) for v in [va, vb], counter-clockwise
+        regions.push({ mark: x.m.mark, zone: deck.zone, area: deck.area, polygon: [toXY(left(va), va), toXY(right(va), va), toXY(right(vb), vb), toXY(left(vb), vb)] });
       });
     }
   }
-  return { pieces, unsupported };
+  return { pieces, regions, unsupported };
 }

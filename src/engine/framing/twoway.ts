@@ -6,10 +6,10 @@
  */
 import { dist, project } from "./geometry";
 import type { DeckMember } from "./oneway";
-import type { PlanDeck, TributaryPiece } from "./types";
+import type { PlanDeck, TributaryPiece, TributaryRegion } from "./types";
 
 /** Pieces per member mark, or the reason the panel is not a two-way rectangle bounded by members. */
-export type TwoWayResult = { readonly ok: true; readonly pieces: ReadonlyMap<string, TributaryPiece[]> } | { readonly ok: false; readonly message: string };
+export type TwoWayResult = { readonly ok: true; readonly pieces: ReadonlyMap<string, TributaryPiece[]>; readonly regions: readonly TributaryRegion[] } | { readonly ok: false; readonly message: string };
 
 /**
  * Loads of one two-way panel on its four bounding members.
@@ -28,9 +28,13 @@ export function twoWayPanel(deck: PlanDeck, members: readonly DeckMember[], tol:
   const lx = Math.min(dist(p[0]!, p[1]!), dist(p[1]!, p[2]!));
   const h = lx / 2;
   const pieces = new Map<string, TributaryPiece[]>();
+  const regions: TributaryRegion[] = [];
   for (let i = 0; i < 4; i++) {
     const a = p[i]!, b = p[(i + 1) % 4]!;
     const ls = dist(a, b);
+    // the panel lies to the left of a -> b (counter-clockwise corners): inward unit normal
+    const nx = -(b.y - a.y) / ls, ny = (b.x - a.x) / ls;
+    const onSide = (t: number, w: number): { x: number; y: number } => ({ x: a.x + ((b.x - a.x) * t) / ls + nx * w, y: a.y + ((b.y - a.y) * t) / ls + ny * w });
     // members along the side (both ends within tol of its line), as intervals along the side from a
     const along: { m: DeckMember; s0: number; s1: number }[] = [];
     for (const m of members) {
@@ -61,10 +65,11 @@ export function twoWayPanel(deck: PlanDeck, members: readonly DeckMember[], tol:
         if (c1 - c0 <= 0) continue;
         const wAt = (t: number): number => w0 + ((w1 - w0) * (t - s0)) / (s1 - s0);
         const f = sa + dir * c0, t = sa + dir * c1;
+        regions.push({ mark: x.m.mark, zone: deck.zone, area: deck.area, polygon: [onSide(c0, 0), onSide(c1, 0), onSide(c1, wAt(c1)), onSide(c0, wAt(c0))] });
         list.push(dir > 0 ? { zone: deck.zone, area: deck.area, from: f, to: t, width: wAt(c0), endWidth: wAt(c1) } : { zone: deck.zone, area: deck.area, from: t, to: f, width: wAt(c1), endWidth: wAt(c0) });
       }
       pieces.set(x.m.mark, list);
     }
   }
-  return { ok: true, pieces };
+  return { ok: true, pieces, regions };
 }

@@ -125,6 +125,19 @@ export interface TributaryPiece {
   readonly endWidth: number;
 }
 
+/**
+ * The deck region a member receives, as a plan polygon (counter-clockwise, ft or m): one per
+ * derived piece before adjacent pieces are merged. Its area equals the integral of the piece's
+ * width along the member, so a member's regions add up to its tributary area.
+ */
+export interface TributaryRegion {
+  readonly mark: string;
+  readonly zone: string;
+  /** The deck area (Decks table `Area`) it is part of. */
+  readonly area: string;
+  readonly polygon: readonly Point[];
+}
+
 /** What one end of a member (or the base of a column) bears on. */
 export interface DerivedSupport {
   /** Mark of the supporting column, member or foundation. */
@@ -172,6 +185,8 @@ export interface Derivation {
   readonly members: readonly DerivedMember[];
   readonly bearings: readonly DerivedBearing[];
   readonly problems: readonly FramingProblem[];
+  /** The deck region each member receives (for drawings), sorted by mark; sums to its tributary area. */
+  readonly regions: readonly TributaryRegion[];
   /** The tolerance used (ft or m). */
   readonly tolerance: number;
 }
