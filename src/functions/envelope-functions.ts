@@ -192,8 +192,8 @@ function quantityOf(text: string, env: Envelope): Result<Governing> {
  * "reaction max N" and "reaction min N" (support N in the order given, up +; a negative minimum is
  * uplift). what "combination" names the governing combination, "pattern" the live load pattern
  * (e.g. "L on span 1"), "case" both. Combination factors recalled from memory: verify.
- * Example: =LOADPATH.GOVERNING(5.4, "moment max", 0.95, 2.51, , , , {0;4.2}) for a joist with a
- * 1.2 m balcony gives the back-span moment with the balcony's live load off.
+ * Example: two equal 6 m spans, D 2 and L 3 kN/m: =LOADPATH.GOVERNING(12, "reaction max 2", 2, 3, , , , {0;6;12})
+ * gives 1.25 x (1.2 x 2 + 1.6 x 3) x 6 = 54 kN.
  * @customfunction GOVERNING
  * @param span Member length, overhangs included (ft, m or any length unit consistent with the loads).
  * @param quantity "moment max", "moment min", "shear max", "reaction max N" or "reaction min N".
