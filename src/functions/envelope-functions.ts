@@ -143,8 +143,14 @@ function combinationsOf(method: Grid | undefined): Result<FactoredCombination[]>
   return ok(combinationsOfSet(pick));
 }
 
+/**
+ * Members kept: a sheet asks for 14 governing cells per member, and a spreadsheet engine may
+ * evaluate them column by column, so the cache holds a whole floor's members, not a few hundred.
+ */
+const ENVELOPE_CACHE_SIZE = 8192;
+
 /** Envelopes computed, by every argument that defines them. */
-const ENVELOPES = new MemberCache<Result<Envelope>>();
+const ENVELOPES = new MemberCache<Result<Envelope>>(ENVELOPE_CACHE_SIZE);
 
 type GoverningArgs = CaseArgs & { readonly method: Grid | undefined; readonly live_factor: number };
 
@@ -222,7 +228,7 @@ export function governing(span: any, quantity: any, D: any[][], L?: any[][], Lr?
 }
 
 /** Deflection checks computed (EI-free: deflections times EI), by every argument that defines them. */
-const CHECKS = new MemberCache<Result<DeflectionCheck>>();
+const CHECKS = new MemberCache<Result<DeflectionCheck>>(ENVELOPE_CACHE_SIZE);
 
 type CheckArgs = CaseArgs & { readonly live_ratio: number; readonly total_ratio: number };
 
