@@ -237,6 +237,50 @@ describe("continuous and overhanging members (US)", () => {
     close(d7.liveLimit, (2 * 6 * 12) / 360);
   });
 
+  it("live load reduction: a member whose live load is all reducible takes its LLR factor; one with unreducible live load is not reduced", async () => {
+    const zones = [
+      ["Zone", "D (psf)", "L (psf)", "Reducible"],
+      ["OFF", 50, 80, "yes"],
+      ["STOR", 50, 80, "no"],
+    ];
+    const span = 40;
+    const trib = 30;
+    const { result } = await buildOn(
+      usBuilding(
+        [
+          ["G1", "girder", "1", span, "OFF", trib, "W1", null, "W2", null, null, null, null, null, null],
+          ["G2", "girder", "1", span, "STOR", trib, "W1", null, "W2", null, null, null, null, null, null],
+        ],
+        zones,
+      ),
+    );
+    // G3 also carries a 100 plf live line load (not reducible): its LLR factor is computed but the
+    // governing values take all its live load unreduced (conservative).
+    const g3 = await buildOn(
+      {
+        ...usBuilding([["G3", "girder", "1", span, "OFF", trib, "W1", null, "W2", null, null, null, null, null, null]], zones),
+        Loads: [
+          ["Mark", "Kind", "Zone or case", "Magnitude", "Width (ft)", "From (ft)", "To (ft)"],
+          ["G3", "line", "L", 100, null, null, null],
+        ],
+      },
+      { loads: "Loads" },
+    );
+    expect(g3.result.problems).toEqual([]);
+    expect(result.problems).toEqual([]);
+    const wD = (50 * trib) / 1000;
+    const wL = (80 * trib) / 1000;
+    // ASCE/SEI 7-22 Eq. 4.7-1 (recalled from memory): L/Lo = 0.25 + 15/sqrt(K_LL A_T), K_LL = 2 (beams,
+    // Table 4.7-2), A_T = span x trib = 1,200 ft^2; not below 0.50 for a member carrying one floor.
+    const llr = Math.max(0.5, 0.25 + 15 / Math.sqrt(2 * span * trib));
+    close(result.json!.members.G1!.llrFactor, llr);
+    close(result.json!.members.G1!.governing!.LRFD.momentMax.value, ((1.2 * wD + 1.6 * llr * wL) * span * span) / 8);
+    close(result.json!.members.G2!.llrFactor, 1);
+    close(result.json!.members.G2!.governing!.LRFD.momentMax.value, ((1.2 * wD + 1.6 * wL) * span * span) / 8);
+    close(g3.result.json!.members.G3!.llrFactor, llr);
+    close(g3.result.json!.members.G3!.governing!.LRFD.momentMax.value, ((1.2 * wD + 1.6 * (wL + 0.1)) * span * span) / 8);
+  });
+
   it("a bad E or limit is a problem at its cell and the member is left out", async () => {
     const zones = [
       ["Zone", "D (psf)", "L (psf)", "Reducible"],
