@@ -9,7 +9,7 @@ const CopyWebpackPlugin = require("copy-webpack-plugin");
 const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin");
 
 /** Every file holding @customfunction declarations. */
-const FUNCTION_SOURCES = ["./src/functions/beam-functions.ts", "./src/functions/load-functions.ts"].filter((f) =>
+const FUNCTION_SOURCES = ["./src/functions/beam-functions.ts", "./src/functions/load-functions.ts", "./src/functions/envelope-functions.ts"].filter((f) =>
   fs.existsSync(path.resolve(__dirname, f)),
 );
 

@@ -3,6 +3,8 @@
  * multi-storey frames of about 1,000, 5,000 and 20,000 members through the HyperFormula adapter of
  * the workbook port (read the tables, check, order, plan, write, calculate, read the results
  * back), and the recalculation after one zone load is edited in the largest workbook.
+ * Every beam and girder carries the governing values over the live load patterns (LOADPATH.GOVERNING,
+ * issue 11); a second run of 1,000 and 5,000 members adds the E and I columns (LOADPATH.DEFLECTION_CHECK).
  * Targets (issue 4): 20,000 members built and written in under 5 s; one zone change
  * recalculated in under 1 s; time growing no faster than linearly with the member count.
  *
@@ -59,8 +61,8 @@ function cpuMsSince(start: NodeJS.CpuUsage): number {
   return (d.user + d.system) / 1000;
 }
 
-async function buildOnce(size: number): Promise<Built> {
-  const shape = frameOfSize(size);
+async function buildOnce(size: number, deflection = false): Promise<Built> {
+  const shape = { ...frameOfSize(size), deflection };
   const frame = makeFrame(shape);
   const port = await MemoryWorkbookPort.create({ sheets: frame.sheets, config: { useStats: true } });
   const marks: Record<string, number> = {};
@@ -190,6 +192,14 @@ export async function run(): Promise<void> {
     perMember.push(built.phases.totalMs / built.members);
     if (size === SIZES[SIZES.length - 1]) largest = built;
     else built.port.hf.destroy();
+  }
+  // Members with E and I (issue 11): the deflection check's six columns beside the governing values.
+  for (const size of [1000, 5000] as const) {
+    const built = await buildOnce(size, true);
+    report(`takedown of ${built.members.toLocaleString("en-US")} members with E and I columns (deflection check): built, written, calculated`, built.phases.totalMs, "ms");
+    report(`  process CPU time meanwhile (all threads)`, built.phases.cpuMs, "ms");
+    report(`  of which evaluating every formula`, built.phases.evaluateMs, "ms");
+    built.port.hf.destroy();
   }
   report("plan only (engine, no spreadsheet engine), 20,000 members", planOnlyMs(20000), "ms");
   const growth = perMember[perMember.length - 1]! / perMember[0]!;

@@ -204,7 +204,10 @@ function writeBeamsSheet(ws: ExcelJS.Worksheet): void {
     ws.getCell(`J${r}`).value = { formula: `LOADPATH.MOMENT_MIN(${member}${sup})` };
     ws.getCell(`K${r}`).value = { formula: `LOADPATH.SHEAR_MAX(${member}${sup})` };
     ws.getCell(`L${r}`).value = { formula: `LOADPATH.DEFLECTION_MAX(${member},C${r},D${r},"kip-ft"${sup})` };
-    ws.getCell(`M${r}`).value = { formula: `IF(L${r}>0,B${r}*12/L${r},"")` };
+    // Governing length/deflection of the parts: each span between supports over its own length,
+    // an overhang over twice its length (the rule REQUIRED_I follows): deflection scales as 1/I, so
+    // at I it is the limit ratio times I / I required.
+    ws.getCell(`M${r}`).value = { formula: `IF(N${r}>0,E${r}*D${r}/N${r},"")` };
     ws.getCell(`N${r}`).value = { formula: `LOADPATH.REQUIRED_I(${member},C${r},E${r},"kip-ft"${sup})` };
     ws.getCell(`O${r}`).value = { formula: `IF(D${r}>=N${r},"OK","REVIEW")` };
     ws.getCell(`P${r}`).value = m.description;

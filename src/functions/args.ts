@@ -99,6 +99,8 @@ export interface RangeSpec<N extends string, O extends boolean> extends SpecBase
 export interface NumberOrRangeSpec<N extends string> extends SpecBase<N> {
   readonly kind: "numberOrRange";
   readonly shape: RangeShape;
+  /** Left out or blank reads as 0 (e.g. a load case with no load) instead of an error. */
+  readonly optional?: boolean;
 }
 
 /** Any argument declaration. */
@@ -163,6 +165,10 @@ export const arg = {
   /** A number, or a range of rows. A single cell holding a number is the number. */
   numberOrRange<N extends string>(name: N, shape: RangeShape): NumberOrRangeSpec<N> {
     return { name, kind: "numberOrRange", shape };
+  },
+  /** As numberOrRange, but left out or a blank cell reads as the number 0. */
+  optionalNumberOrRange<N extends string>(name: N, shape: RangeShape): NumberOrRangeSpec<N> {
+    return { name, kind: "numberOrRange", shape, optional: true };
   },
 };
 
@@ -373,8 +379,9 @@ export function coerceArg(spec: ArgSpec, raw: unknown): Result<unknown> {
       return checkShape(grid, spec.name, spec.shape);
     }
     case "numberOrRange": {
-      if (raw === null || raw === undefined) return fail("missing", "is required.", spec.name);
+      if (raw === null || raw === undefined) return spec.optional === true ? ok(0) : fail("missing", "is required.", spec.name);
       const grid = toGrid(raw);
+      if (spec.optional === true && grid.length === 0) return ok(0);
       const single = grid.length === 1 && grid[0]!.length === 1 ? grid[0]![0]! : undefined;
       if (typeof single === "number") return ok(single);
       if (single !== undefined) return fail("notANumber", `${describeCell(single)} is not a number; give a number or a range of rows.`, spec.name);

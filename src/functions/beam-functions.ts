@@ -12,6 +12,7 @@
 /* eslint-disable @typescript-eslint/no-explicit-any -- parameter types are what the metadata generator maps */
 import { fail, ok, type Result } from "../engine/errors";
 import { solveBeam } from "../engine/beam";
+import { memberSegments } from "../engine/envelope";
 import type { BeamSolution } from "../engine/beam/types";
 import { arg, asHostMatrix, asHostNumber, defineArgs, formatNumber, runFunction, type Grid } from "./args";
 import { beamModel, DEFLECTION_UNITS, UNITS_CHOICES, withRangeRow, type MemberInput } from "./beam-args";
@@ -256,8 +257,9 @@ export function deflectionAt(span: any, loads: any[][], E: any, I: any, units: a
 }
 
 /**
- * Least moment of inertia for which the largest deflection, up or down, is at most span/ratio
- * (e.g. ratio 360 for L/360). Units key as for DEFLECTION_MAX; the result is in in^4 for
+ * Least moment of inertia for which the deflection, up or down, of every part of the member is at
+ * most its length/ratio (e.g. ratio 360 for L/360): a span between two supports is held to its own
+ * length, an overhang to twice its length (a cantilever tip; common practice). Units key as for DEFLECTION_MAX; the result is in in^4 for
  * "kip-ft", mm^4 for "kN-m".
  * @customfunction REQUIRED_I
  * @param span Member length (ft for kip-ft, m for kN-m).
@@ -271,12 +273,23 @@ export function deflectionAt(span: any, loads: any[][], E: any, I: any, units: a
 export function requiredI(span: any, loads: any[][], E: any, ratio: any, units: any, supports?: any[][]): number {
   return asHostNumber(
     runFunction(REQUIRED_I_ARGS, [span, loads, E, ratio, units, supports], (a) =>
-      withSolution(a, (s) => {
+      withSolution(a, (s, input) => {
         const u = DEFLECTION_UNITS[a.units as keyof typeof DEFLECTION_UNITS];
-        const worstEI = Math.max(s.maxDeflectionEI().value, -s.minDeflectionEI().value);
-        // deflection = factor * EIdefl / (E I) <= allowed  <=>  I >= factor * EIdefl / (E * allowed)
-        const allowed = (a.span * u.deflectionPerLength) / a.ratio;
-        return ok((u.factor * worstEI) / (a.E * allowed));
+        const segments = memberSegments(a.span, input.model.supports);
+        if (!segments.ok) return segments;
+        // Each segment against its own limit: a span between supports over its length, an overhang
+        // over twice its length (common practice). Extremes at the slope roots, supports, load ends.
+        const points = s.criticalPoints();
+        let required = 0;
+        for (const seg of segments.value) {
+          let worstEI = 0;
+          for (const x of points) if (x >= seg.start && x <= seg.end) worstEI = Math.max(worstEI, Math.abs(s.deflectionEIAt(x)));
+          const length = seg.kind === "overhang" ? 2 * (seg.end - seg.start) : seg.end - seg.start;
+          // deflection = factor * EIdefl / (E I) <= allowed  <=>  I >= factor * EIdefl / (E * allowed)
+          const allowed = (length * u.deflectionPerLength) / a.ratio;
+          required = Math.max(required, (u.factor * worstEI) / (a.E * allowed));
+        }
+        return ok(required);
       }),
     ),
   );

@@ -6,3 +6,4 @@
  */
 import "./beam-functions";
 import "./load-functions";
+import "./envelope-functions";

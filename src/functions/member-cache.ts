@@ -20,6 +20,8 @@ export interface MemberArgs {
   readonly span: number;
   readonly loads: number | Grid;
   readonly supports: Grid | undefined;
+  /** Further arguments that define the result (other load cases, a combination set, ratios), compared cell by cell. */
+  readonly extra?: readonly (number | string | Grid | undefined)[];
 }
 
 // Hashing numbers by their bits is far cheaper than spelling them as text.
@@ -60,7 +62,29 @@ function mixGrid(h: number, g: Grid): number {
 export function memberHash(m: MemberArgs): number {
   let h = mixNumber(0x2545f491, m.span);
   h = typeof m.loads === "number" ? mixNumber(h ^ 0x6e, m.loads) : mixGrid(h ^ 0x67, m.loads);
-  return m.supports === undefined ? h : mixGrid(h ^ 0x73, m.supports);
+  if (m.supports !== undefined) h = mixGrid(h ^ 0x73, m.supports);
+  if (m.extra !== undefined) {
+    for (const e of m.extra) {
+      if (e === undefined) h = Math.imul(h ^ 0x75, 0x9e3779b1);
+      else if (typeof e === "number") h = mixNumber(h ^ 0x6e, e);
+      else if (typeof e === "string") h = mixText(h ^ 0x74, e);
+      else h = mixGrid(h ^ 0x67, e);
+    }
+  }
+  return h;
+}
+
+function sameExtra(a: MemberArgs["extra"], b: MemberArgs["extra"]): boolean {
+  if (a === undefined || b === undefined) return a === b;
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i];
+    const y = b[i];
+    if (x === undefined || y === undefined || typeof x !== "object" || typeof y !== "object") {
+      if (!Object.is(x, y)) return false;
+    } else if (!sameGrid(x, y)) return false;
+  }
+  return true;
 }
 
 function sameCell(a: CellIn, b: CellIn): boolean {
@@ -90,8 +114,10 @@ export function sameMember(a: MemberArgs, b: MemberArgs): boolean {
   if (typeof a.loads === "number" || typeof b.loads === "number") {
     if (!Object.is(a.loads, b.loads)) return false;
   } else if (!sameGrid(a.loads, b.loads)) return false;
-  if (a.supports === undefined || b.supports === undefined) return a.supports === b.supports;
-  return sameGrid(a.supports, b.supports);
+  if (a.supports === undefined || b.supports === undefined) {
+    if (a.supports !== b.supports) return false;
+  } else if (!sameGrid(a.supports, b.supports)) return false;
+  return sameExtra(a.extra, b.extra);
 }
 
 interface Entry<T> {
@@ -120,7 +146,7 @@ export class MemberCache<T> {
     if (bucket) for (const e of bucket) if (sameMember(e.args, args)) return e.value;
     const value = compute();
     if (this.order.length - this.head >= this.capacity) this.dropOldest();
-    const entry = { args: { span: args.span, loads: args.loads, supports: args.supports }, value };
+    const entry = { args: { span: args.span, loads: args.loads, supports: args.supports, ...(args.extra !== undefined ? { extra: args.extra } : {}) }, value };
     if (bucket) bucket.push(entry);
     else this.buckets.set(h, [entry]);
     this.order.push(h);

@@ -237,6 +237,9 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   await report(progress, 1, "Done");
   // The hand-off writer spells every member on two supports; continuous members are written as values, listed.
   const built: BuiltTakedown = { model: planned.model, plan: planned.plan, rowsByMember: rowsByMemberOf(planned.plan, planned.model) };
-  const valueOnly = [...new Map(planned.plan.valueOnly.map((v) => [v.mark, { mark: v.mark, reason: v.reason }])).values()];
+  // One entry per member, with the first reason given for it (a continuous member's, before the governing values').
+  const byMark = new Map<string, { mark: string; reason: string }>();
+  for (const v of planned.plan.valueOnly) if (!byMark.has(v.mark)) byMark.set(v.mark, { mark: v.mark, reason: v.reason });
+  const valueOnly = [...byMark.values()];
   return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly } : {}) };
 };

@@ -83,6 +83,25 @@ describe("simple beam, uniform load (AISC Table 3-23, case 1)", () => {
     close(f.deflectionMax(6, [[20]], 200000, 80e6, "SI"), (5 * 20 * 6000 ** 4) / (384 * 200000 * 80e6));
     close(f.requiredI(6, [[20]], 200000, 250, " si "), (5 * 20 * 6000 ** 4) / (384 * 200000 * (6000 / 250)));
   });
+  it("required I holds each part to its own limit: the span between supports, twice the overhang at a tip", () => {
+    // Beam overhanging one support, uniform load on the overhang only (AISC Steel Construction
+    // Manual Table 3-23, beam overhanging one support; recalled from memory): tip deflection
+    // w a^3 (4l + 3a) / (24 EI). Supports at 0 and l = 20 ft, overhang a = 8 ft, w = 1 kip/ft.
+    const l = 20;
+    const a = 8;
+    const w = 1;
+    const E = 29000;
+    const tipEI = (w * a ** 3 * (4 * l + 3 * a)) / 24; // kip-ft^3
+    // Back span: lifted by the overhang's moment M = w a^2/2; largest upward EI deflection of a
+    // simple span under an end moment M is M l^2 / (9 sqrt 3) (Table 3-23, end moment; recalled from memory).
+    const backEI = ((w * a * a) / 2) * l ** 2 / (9 * Math.sqrt(3));
+    // I >= 1728 x EIdefl / (E x allowed in), allowed = 12 x (2a or l) / 360
+    const want = Math.max((1728 * tipEI) / (E * ((12 * 2 * a) / 360)), (1728 * backEI) / (E * ((12 * l) / 360)));
+    close(f.requiredI(l + a, [[w, l, l + a, null]], E, 360, "kip-ft", [[0], [l]]), want);
+    // The tip governs here; against the whole 28 ft length it would have come out lower.
+    expect(want).toBeCloseTo((1728 * tipEI) / (E * ((12 * 2 * a) / 360)), 9);
+  });
+
   it("required I uses the largest deflection up or down (an uplift load deflects upward only)", () => {
     const E = 29000;
     expect(f.deflectionMax(L, [[-w]], E, 500, "kip-ft")).toBe(0);

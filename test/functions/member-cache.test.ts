@@ -115,3 +115,30 @@ describe("beam functions through the cache", () => {
     );
   });
 });
+
+describe("further arguments (the other load cases, a combination set, ratios)", () => {
+  const extraItem: fc.Arbitrary<number | string | Grid | undefined> = fc.oneof(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.constantFrom("LRFD", "ASD"), grid, fc.constant(undefined));
+  const extra = fc.array(extraItem, { minLength: 1, maxLength: 6 });
+
+  it("equal further arguments hash alike and match; any differing item (or its absence) does not match", () => {
+    fc.assert(
+      fc.property(member, extra, extra, (m, a, b) => {
+        const x = { ...m, extra: a };
+        const copy = { ...m, extra: a.map((e) => (Array.isArray(e) ? e.map((r) => [...r]) : e)) };
+        expect(sameMember(x, copy)).toBe(true);
+        expect(memberHash(x)).toBe(memberHash(copy));
+        expect(sameMember(x, m)).toBe(false);
+        const differs = a.length !== b.length || a.some((e, i) => !sameMember({ ...m, extra: [e] }, { ...m, extra: [b[i]] }));
+        if (differs) expect(sameMember(x, { ...m, extra: b })).toBe(false);
+      }),
+    );
+  });
+
+  it("a member cached with one live load is not returned for another", () => {
+    const cache = new MemberCache<number>(8);
+    const base = { span: 6, loads: 2, supports: undefined };
+    expect(cache.get({ ...base, extra: [3] }, () => 1)).toBe(1);
+    expect(cache.get({ ...base, extra: [5] }, () => 2)).toBe(2);
+    expect(cache.get({ ...base, extra: [3] }, () => 3)).toBe(1);
+  });
+});

@@ -28,12 +28,14 @@ async function addInCalls(path: string): Promise<string[]> {
 }
 
 describe("loadpath takedown --native", () => {
-  it("builds the SI sample with classic functions only and says no member is a value", async () => {
+  it("builds the SI sample with classic functions only and lists the members whose governing values are written as values", async () => {
     const out = join(scratch.dir, "si-native.xlsx");
     const r = await run("takedown", join(SAMPLES, "timber-house-si.xlsx"), "-o", out, "--units", "SI", "--native");
     expect(r.err).toBe("");
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/Hand-off version: every result is a live formula/);
+    // Reactions, shears and moments stay live formulas; the governing values over the live load patterns are add-in results.
+    expect(r.out).toMatch(/Hand-off version: \d+ member\(s\) written as values \(not live\):/);
+    expect(r.out).toMatch(/J01: J01: governing values over the load combinations and live load patterns/);
     expect(await addInCalls(out)).toEqual([]);
     const wb = await readXlsx(out);
     expect(wb.sheets.map((s) => s.name)).toEqual(expect.arrayContaining(["Takedown", "Takedown extremes"]));
@@ -49,14 +51,17 @@ describe("loadpath takedown --native", () => {
 });
 
 describe("loadpath export", () => {
-  it("hands off the US sample (tables only in the file): prints what it rebuilt, no value-only cell, the notice and the caution", async () => {
+  it("hands off the US sample (tables only in the file): prints what it rebuilt, the governing values as value-only cells, the notice and the caution", async () => {
     const out = join(scratch.dir, "us-handoff.xlsx");
     const r = await run("export", join(SAMPLES, "steel-office-us.xlsx"), "-o", out);
     expect(r.err).toBe("");
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/Hand-off workbook written to/);
     expect(r.out).toMatch(/Takedown: \d+ members rebuilt with classic spreadsheet functions/);
-    expect(r.out).toMatch(/Written as values \(not live\): none/);
+    // Only the governing values over the live load patterns (add-in only) are values.
+    const listed = r.out.split("\n").filter((l) => /^ {4}Takedown!/.test(l));
+    expect(listed.length).toBeGreaterThan(0);
+    for (const l of listed) expect(l).toMatch(/governing values over the load combinations and live load patterns/);
     expect(r.out).toMatch(/Notice sheet: "Read me"/);
     expect(r.out).toMatch(/qualified engineer/);
     expect(await addInCalls(out)).toEqual([]);

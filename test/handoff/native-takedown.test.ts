@@ -67,11 +67,12 @@ describe.each(sources)("hand-off takedown equals the add-in takedown: $variant",
     native = await build(true);
   });
 
-  it("both builds succeed without problems; the hand-off one lists no value-only member", () => {
+  it("both builds succeed without problems; the hand-off one lists value-only members only for their governing values", () => {
     expect(addIn.result.problems).toEqual([]);
     expect(native.result.problems).toEqual([]);
     expect(native.result.ok && addIn.result.ok).toBe(true);
-    expect(native.result.valueOnly).toEqual([]);
+    // Governing values over the live load patterns have no classic-function form: written as values, listed.
+    for (const v of native.result.valueOnly ?? []) expect(v.reason).toMatch(/governing values over the load combinations and live load patterns/);
     expect(native.port.generatedSheets()).toEqual(["Takedown", helperSheetName("Takedown")]);
   });
 

@@ -15,6 +15,8 @@ export interface FrameSize {
   readonly beamsPerBay: number;
   /** Bay size (ft). */
   readonly bayFt?: number;
+  /** Add the Members columns E (ksi) and I (in^4) for the deflection check: beams with I, girders without (required I). */
+  readonly deflection?: boolean;
 }
 
 /** Sheets of a generated frame and its member count. */
@@ -72,7 +74,10 @@ export function makeFrame(size: FrameSize): Frame {
     zones.push(roof ? [name, 25, null, 20, 30, "no"] : [name, 70, 50, null, null, "yes"]);
   }
   zones.push(["CORR", 70, 100, null, null, "no"]);
-  const members: RawCellContent[][] = [["Mark", "Type", "Level", "Span (ft)", "Zone", "Trib (ft)", "Start support", "Start at (ft)", "End support", "End at (ft)", "KLL", "wD (plf)"]];
+  const headers: RawCellContent[] = ["Mark", "Type", "Level", "Span (ft)", "Zone", "Trib (ft)", "Start support", "Start at (ft)", "End support", "End at (ft)", "KLL", "wD (plf)"];
+  const members: RawCellContent[][] = [size.deflection ? [...headers, "E (ksi)", "I (in4)"] : headers];
+  // Steel, E = 29,000 ksi; an invented I for the beams, blank for the girders (their required I is reported).
+  const stiffness = (type: "beam" | "girder"): RawCellContent[] => (size.deflection ? [29000, type === "beam" ? 510 : null] : []);
   const col = (i: number, j: number, lv: number): string => `C${i}.${j}-${levelName(lv)}`;
   const girder = (i: number, j: number, lv: number): string => `G${i}.${j}-${levelName(lv)}`;
   for (let lv = size.levels; lv >= 1; lv--) {
@@ -82,14 +87,14 @@ export function makeFrame(size: FrameSize): Frame {
       for (let j = 0; j < n; j++) {
         for (let t = 1; t <= k; t++) {
           const at = spacing * t;
-          members.push([`B${i}.${j}.${t}-${L}`, "beam", L, bay, zone, spacing, girder(i, j, lv), at, girder(i + 1, j, lv), at, null, 35]);
+          members.push([`B${i}.${j}.${t}-${L}`, "beam", L, bay, zone, spacing, girder(i, j, lv), at, girder(i + 1, j, lv), at, null, 35, ...stiffness("beam")]);
         }
       }
     }
     for (let i = 0; i <= n; i++) {
       for (let j = 0; j < n; j++) {
         const edge = i === 0 || i === n;
-        members.push([girder(i, j, lv), "girder", L, bay, zone, edge ? 1 : null, col(i, j, lv), null, col(i, j + 1, lv), null, null, edge ? 120 : 80]);
+        members.push([girder(i, j, lv), "girder", L, bay, zone, edge ? 1 : null, col(i, j, lv), null, col(i, j + 1, lv), null, null, edge ? 120 : 80, ...stiffness("girder")]);
       }
     }
     for (let i = 0; i <= n; i++) {

@@ -203,6 +203,7 @@ export function takedownsOfRun(wb: XlsxWorkbook, run: TakedownRun): TakedownSpec
 export function valueOnlyReason(formula: string): string {
   const name = /(?:LOADPATH\.|_xldudf_LOADPATH_)([A-Za-z0-9_]+)\s*\(/i.exec(formula)?.[1]?.toUpperCase() ?? "an add-in function";
   if (/^(DEFLECTION_|REQUIRED_I)/.test(name)) return `${name}: a deflection needs the member's elastic curve (EI), solved by the add-in`;
+  if (name === "GOVERNING") return `${name}: governing values over the load combinations and live load patterns, computed by the add-in`;
   if (/^(DIAGRAM|REACTIONS|COMBOS)$/.test(name)) return `${name}: a spilled list computed by the add-in`;
   return `${name} on your own sheet: the hand-off version rebuilds takedown sheets in classic functions, other add-in formulas keep their values`;
 }

@@ -48,6 +48,12 @@ export interface FormulaWriter {
    * `SheetPlan.valueOnly` so that the build replaces them with their values.
    */
   readonly continuous?: boolean;
+  /**
+   * Whether it spells the governing values over combinations and live load patterns and the
+   * deflection check; when not, the plan writes them with the add-in's functions and lists them in
+   * `SheetPlan.valueOnly` (replaced by their values).
+   */
+  readonly governing?: boolean;
   /** Vertical reaction (up +) at the member's support number `index` (1 = first, in order along the member). */
   reaction(member: MemberRefs, loads: ChannelRefs, index: number): string;
   /** Largest absolute shear. */
@@ -71,6 +77,7 @@ export const ADD_IN_WRITER: FormulaWriter = {
   name: "LOADPATH worksheet functions",
   writesLoadRanges: true,
   continuous: true,
+  governing: true,
   reaction: (m, c, index) => `LOADPATH.REACTION(${m.span},${c.loads},${index}${withSupports(m)})`,
   shearMax: (m, c) => `LOADPATH.SHEAR_MAX(${m.span},${c.loads}${withSupports(m)})`,
   momentMax: (m, c) => `LOADPATH.MOMENT_MAX(${m.span},${c.loads}${withSupports(m)})`,
@@ -78,3 +85,45 @@ export const ADD_IN_WRITER: FormulaWriter = {
   llrFactor: (kll, at, floors, units) => `LOADPATH.LL_REDUCE(1,${kll},${at},${floors},"${units}")`,
   combine: (d, l, lr, s, r) => `LOADPATH.COMBINE(${d},${l},${lr},${s},${r})`,
 };
+
+/** The loads of the five cases a governing or deflection formula takes (a loads reference, or "0" for none). */
+export interface CaseLoads {
+  readonly D: string;
+  readonly L: string;
+  readonly Lr: string;
+  readonly S: string;
+  readonly R: string;
+}
+
+function caseArgs(c: CaseLoads): string {
+  return `${c.D},${c.L},${c.Lr},${c.S},${c.R}`;
+}
+
+/**
+ * A LOADPATH.GOVERNING formula: the governing LRFD value of a quantity over the combinations and the
+ * live load patterns, or (what "case") its combination and pattern as text.
+ * @param member - length and supports
+ * @param cases - the loads of each case
+ * @param quantity - "moment max", "moment min", "shear max", "reaction max N", "reaction min N"
+ * @param liveFactor - cell or number multiplying L (the member's live load reduction factor, or 1)
+ * @param what - "value" or "case"
+ */
+export function governingFormula(member: MemberRefs, cases: CaseLoads, quantity: string, liveFactor: string, what: "value" | "case"): string {
+  const tail = what === "value" ? "" : `,"${what}"`;
+  return `LOADPATH.GOVERNING(${member.span},"${quantity}",${caseArgs(cases)},${member.supports ?? ""},"LRFD",${liveFactor}${tail})`;
+}
+
+/**
+ * A LOADPATH.DEFLECTION_CHECK formula.
+ * @param member - length and supports
+ * @param E - cell of E (ksi or MPa)
+ * @param I - cell of I (in⁴ or mm⁴), or "" when blank
+ * @param units - the takedown's unit system (US: kip-ft, SI: kN-m)
+ * @param cases - the loads of each case (unfactored)
+ * @param live - live limit ratio (cell formula or number)
+ * @param total - total limit ratio
+ * @param what - "live", "total", "live limit", "total limit", "ratio" or "required I"
+ */
+export function deflectionFormula(member: MemberRefs, E: string, I: string, units: UnitSystem, cases: CaseLoads, live: string, total: string, what: string): string {
+  return `LOADPATH.DEFLECTION_CHECK(${member.span},${E},${I},"${units === "US" ? "kip-ft" : "kN-m"}",${caseArgs(cases)},${member.supports ?? ""},${live},${total},"${what}")`;
+}

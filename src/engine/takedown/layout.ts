@@ -68,8 +68,37 @@ export interface Layout {
   readonly wallLength: number;
   /** Walls and foundations: total per unit length, per channel (kip/ft or kN/m). */
   readonly perLength: readonly number[];
+  /**
+   * Beams, girders, joists: governing LRFD values over the combinations and live load patterns
+   * (LOADPATH.GOVERNING), each value followed by a text column "combination; pattern". Reactions at
+   * the first support (interior supports of a continuous member on the rows below) and at the last.
+   */
+  readonly governing: GoverningColumns;
+  /** Deflection columns (members with E given), or null when no member has E. */
+  readonly deflection: DeflectionColumns | null;
   /** Number of columns. */
   readonly width: number;
+}
+
+/** Value columns of the governing values; the text column of each is the next column. */
+export interface GoverningColumns {
+  readonly momentMax: number;
+  readonly momentMin: number;
+  readonly shearMax: number;
+  readonly reactionMaxFirst: number;
+  readonly reactionMaxLast: number;
+  readonly reactionMinFirst: number;
+  readonly reactionMinLast: number;
+}
+
+/** Columns of the deflection check (LOADPATH.DEFLECTION_CHECK). */
+export interface DeflectionColumns {
+  readonly live: number;
+  readonly total: number;
+  readonly liveLimit: number;
+  readonly totalLimit: number;
+  readonly ratio: number;
+  readonly requiredI: number;
 }
 
 /**
@@ -93,7 +122,7 @@ export function channelsOf(cases: readonly LoadCase[], splitLive: boolean, units
  * @param channels - from {@link channelsOf}
  * @param units - unit system
  */
-export function layoutOf(channels: readonly Channel[], units: UnitSystem): Layout {
+export function layoutOf(channels: readonly Channel[], units: UnitSystem, deflection = false): Layout {
   let next = COL.loaded + 1;
   const take = (n: number): number[] => Array.from({ length: n }, () => next++);
   const block = channels.map(() => {
@@ -122,5 +151,44 @@ export function layoutOf(channels: readonly Channel[], units: UnitSystem): Layou
   }
   const [areaT, kll, floors, kllAt, llr, reducedLive, factored, wallLength] = take(8) as [number, number, number, number, number, number, number, number];
   const perLength = take(channels.length);
-  return { units, channels, cases, block, r1, r2, vMax, mMax, arriving, total, areaT, kll, floors, kllAt, llr, reducedLive, factored, wallLength, perLength, width: next };
+  const pair = (): number => {
+    const c = next;
+    next += 2;
+    return c;
+  };
+  const governing: GoverningColumns = {
+    momentMax: pair(),
+    momentMin: pair(),
+    shearMax: pair(),
+    reactionMaxFirst: pair(),
+    reactionMaxLast: pair(),
+    reactionMinFirst: pair(),
+    reactionMinLast: pair(),
+  };
+  const defl = deflection ? (take(6) as [number, number, number, number, number, number]) : null;
+  const deflectionColumns = defl === null ? null : { live: defl[0], total: defl[1], liveLimit: defl[2], totalLimit: defl[3], ratio: defl[4], requiredI: defl[5] };
+  return {
+    units,
+    channels,
+    cases,
+    block,
+    r1,
+    r2,
+    vMax,
+    mMax,
+    arriving,
+    total,
+    areaT,
+    kll,
+    floors,
+    kllAt,
+    llr,
+    reducedLive,
+    factored,
+    wallLength,
+    perLength,
+    governing,
+    deflection: deflectionColumns,
+    width: next,
+  };
 }

@@ -96,6 +96,23 @@ export interface Member {
   readonly valid: boolean;
   /** False for the second and later rows of a repeated mark. */
   readonly firstOfMark: boolean;
+  /** Deflection inputs (optional Members columns E, I, Live limit, Total limit); absent when none is filled. */
+  readonly deflection?: DeflectionInput;
+}
+
+/** A span-ratio limit cell: 360 or the text L/360; `text` when the cell holds the L/ form (read in the formula). */
+export interface LimitInput {
+  readonly value: number;
+  readonly cell: CellRef;
+  readonly text: boolean;
+}
+
+/** A flexural member's deflection inputs: E (ksi or MPa), I (in⁴ or mm⁴, null = blank: required I is given), limits (null = default). */
+export interface DeflectionInput {
+  readonly E: NumberInput | null;
+  readonly I: NumberInput | null;
+  readonly liveLimit: LimitInput | null;
+  readonly totalLimit: LimitInput | null;
 }
 
 /** Kinds of extra loads in the Loads table. */
@@ -333,8 +350,68 @@ function readMember(r: RowReader<MembersColumn>, index: number, zones: ReadonlyM
   });
   const start = support("startSupport", "startAt", "Start at");
   const end = support("endSupport", "endAt", "End at");
+  const deflection = readDeflection(r, mark, memberType);
   const valid = firstOfMark && r.problems.length === before;
-  return { index, mark, markCell: r.cell("mark")!, type: memberType, level: r.text("level"), span: span.input, startOverhang, endOverhang, zone, trib, start, end, kll, extra, valid, firstOfMark };
+  return {
+    index,
+    mark,
+    markCell: r.cell("mark")!,
+    type: memberType,
+    level: r.text("level"),
+    span: span.input,
+    startOverhang,
+    endOverhang,
+    zone,
+    trib,
+    start,
+    end,
+    kll,
+    extra,
+    valid,
+    firstOfMark,
+    ...(deflection !== null ? { deflection } : {}),
+  };
+}
+
+/** A limit cell: a positive number (360) or text L/360 (case and spaces aside). */
+function readLimit(r: RowReader<MembersColumn>, key: "liveLimit" | "totalLimit", what: string, mark: string): LimitInput | null {
+  const cell = r.cell(key);
+  if (cell === null) return null;
+  const raw = r.raw(key);
+  if (isErrorValue(raw)) {
+    r.report(key, "badValue", `${mark}: ${what} is the error value ${String(raw).trim()}; give a span ratio such as 360 or L/360.`, mark);
+    return null;
+  }
+  const t = textOf(raw);
+  if (t === "") return null;
+  const m = /^L\s*\/\s*(\d+(?:\.\d*)?)$/i.exec(t);
+  const n = m ? Number(m[1]) : numberOf(raw).kind === "number" ? (numberOf(raw) as { value: number }).value : Number.NaN;
+  if (!(Number.isFinite(n) && n > 0)) {
+    r.report(key, "badValue", `${mark}: ${what} "${t}" is not a span ratio; give a number greater than 0 such as 360, or L/360.`, mark);
+    return null;
+  }
+  if (!m && typeof raw === "string") r.textNumbers.add(cellKey(cell));
+  return { value: n, cell, text: m !== null };
+}
+
+/** The deflection inputs of a member row (null when none of the columns is filled). */
+function readDeflection(r: RowReader<MembersColumn>, mark: string, type: MemberType): DeflectionInput | null {
+  const positive = (key: "E" | "I", what: string): NumberInput | null => {
+    const n = r.number(key, `${mark}: ${what}`, mark);
+    if (n.bad || n.input === null || n.input.value === null) return null;
+    if (n.input.value <= 0) {
+      r.report(key, "badValue", `${mark}: ${what} ${formatNumber(n.input.value)} must be greater than 0.`, mark);
+      return null;
+    }
+    return n.input;
+  };
+  const E = positive("E", "E");
+  const I = positive("I", "I");
+  const liveLimit = readLimit(r, "liveLimit", "Live limit", mark);
+  const totalLimit = readLimit(r, "totalLimit", "Total limit", mark);
+  if (E === null && I === null && liveLimit === null && totalLimit === null) return null;
+  if (!isFlexural(type)) return null;
+  return { E, I, liveLimit, totalLimit };
 }
 
 /** Read the Members table. */

@@ -11,9 +11,9 @@
  * {@link FormulaWriter}'s.
  */
 import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
-import { ADD_IN_WRITER, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
+import { ADD_IN_WRITER, deflectionFormula, governingFormula, type CaseLoads, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
 import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
-import { cellKey, endsPath, isFlexural, isTerminal, type Member, type TakedownModel, type Zone } from "./model";
+import { cellKey, endsPath, isFlexural, isTerminal, type LimitInput, type Member, type TakedownModel, type Zone } from "./model";
 import { RESULT_UNITS } from "./units";
 import type { CellRef, CellValue, LoadCase } from "./types";
 import { deliveryLabel, type Delivery, type InteriorSupport, type PlacedLoad } from "./validate";
@@ -109,6 +109,8 @@ interface LoadRow {
   readonly to: PlanCell | null;
   /** Magnitude formula per channel index (absent = none of that channel). */
   readonly mags: ReadonlyMap<number, string>;
+  /** True when the row's live load (if any) is all reducible (ASCE/SEI 7-22 Sec. 4.7). */
+  readonly reducibleLive?: boolean;
 }
 
 /** Everything the block writers share. */
@@ -129,6 +131,8 @@ interface Context {
   readonly baseOf: ReadonlyMap<number, Delivery>;
   /** Walls and foundations whose length cell is written. */
   readonly wallLengths: Set<number>;
+  /** Flexural members whose live load is all reducible (their reactions carry reducible live load only). */
+  readonly reducibleLive: Set<number>;
 }
 
 /** Unit conversion of a pound-based input to kips, visible in the formula (US); none in SI. */
@@ -184,7 +188,7 @@ function zoneRow(ctx: Context, m: Member, row: number): LoadRow | null {
   if (mags.size === 0) return null;
   const parts = [...(zone ? [`zone ${zone.name} × trib`] : []), ...extras.map((c) => `w${c}`)];
   const width = zone && m.trib ? f(inputRef(ctx, m.trib.cell)) : undefined;
-  return { kind: "line", source: parts.join(" + "), ...(width ? { width } : {}), from: null, to: null, mags };
+  return { kind: "line", source: parts.join(" + "), ...(width ? { width } : {}), from: null, to: null, mags, reducibleLive: zone?.reducible === true && m.extra.L === undefined };
 }
 
 /** A Loads-table row on a member. */
@@ -201,6 +205,7 @@ function extraLoadRow(ctx: Context, p: PlacedLoad, row: number, axial: boolean):
       from: partial ? ref(l.from) : null,
       to: partial ? ref(l.to) : null,
       mags: areaMags(ctx, l.zone, row, {}),
+      reducibleLive: l.zone?.reducible === true,
     };
   }
   const c = l.loadCase!;
@@ -236,7 +241,14 @@ function receivedRow(ctx: Context, d: Delivery, axial: boolean): LoadRow {
     const cell = deliveredCell(ctx, d, i);
     if (cell !== null) mags.set(i, cell);
   }
-  return { kind: "reaction", source: deliveryLabel(from.mark, d), from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)), to: null, mags };
+  return {
+    kind: "reaction",
+    source: deliveryLabel(from.mark, d),
+    from: axial || d.at === null ? null : f(inputRef(ctx, d.at.cell)),
+    to: null,
+    mags,
+    reducibleLive: ctx.reducibleLive.has(d.from),
+  };
 }
 
 /** The member's identity cells (mark, type, level). */
@@ -381,6 +393,7 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
     }
   }
   const at = ch(ctx, "AT");
+  writeGoverning(ctx, m, row, n, uniform, live, rows, member, interiors);
   if (at !== undefined) {
     // A_T is an area, never negative: a member that only takes the uplift end of an overhanging
     // member it carries gets 0 (no reduction, the conservative reading), in both versions alike.
@@ -390,6 +403,74 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
     grid.set(row, layout.llr, f(ctx.writer.llrFactor(a1(row, layout.kll), a1(row, layout.areaT), "1", ctx.model.units)));
   }
   return { member: m.index, row, rows: n, live, ...(interiors > 0 ? { interiors } : {}) };
+}
+
+/** The cases GOVERNING and DEFLECTION_CHECK take, in their argument order. */
+const MEMBER_CASES = ["D", "L", "Lr", "S", "R"] as const;
+
+/** A limit ratio argument: the cell (L/360 text read by the formula), or the default when the cell is blank. */
+function limitArg(ctx: Context, limit: LimitInput | null, fallback: number): string {
+  if (limit === null) return String(fallback);
+  const ref = sheetCellRef(limit.cell);
+  return limit.text ? `VALUE(MID(${ref},FIND("/",${ref})+1,20))` : inputRef(ctx, limit.cell);
+}
+
+/**
+ * Governing LRFD values of a beam, girder or joist over the combinations and live load patterns
+ * (M+, M-, |V|, each reaction's max and min, each with its combination and pattern), and its
+ * deflection check when E is given. The live load is multiplied by the member's LLR factor when all
+ * of it is reducible, else taken unreduced (conservative).
+ */
+function writeGoverning(ctx: Context, m: Member, row: number, n: number, uniform: boolean, live: readonly number[], rows: readonly LoadRow[], member: MemberRefs, interiors: number): void {
+  const { grid, layout } = ctx;
+  const loads: Record<(typeof MEMBER_CASES)[number], string> = { D: "0", L: "0", Lr: "0", S: "0", R: "0" };
+  for (const c of MEMBER_CASES) {
+    const i = ch(ctx, c);
+    if (i !== undefined && live.includes(i)) loads[c] = channelRefs(ctx, i, row, n, uniform).loads;
+  }
+  const cases: CaseLoads = loads;
+  const liveIndex = ch(ctx, "L");
+  const reducible = liveIndex !== undefined && rows.every((r) => !r.mags.has(liveIndex) || r.reducibleLive === true);
+  if (reducible) ctx.reducibleLive.add(m.index);
+  const liveFactor = reducible && ch(ctx, "AT") !== undefined ? a1(row, layout.llr) : "1";
+  const handOff = ctx.writer.governing !== true;
+  const put = (r: number, c: number, formula: string): void => {
+    grid.set(r, c, f(formula));
+    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark}: governing values over the load combinations and live load patterns, and the deflection check, are computed by the add-in` });
+  };
+  const both = (r: number, c: number, quantity: string): void => {
+    put(r, c, governingFormula(member, cases, quantity, liveFactor, "value"));
+    put(r, c + 1, governingFormula(member, cases, quantity, liveFactor, "case"));
+  };
+  const g = layout.governing;
+  const supports = interiors + 2;
+  both(row, g.momentMax, "moment max");
+  both(row, g.momentMin, "moment min");
+  both(row, g.shearMax, "shear max");
+  both(row, g.reactionMaxFirst, "reaction max 1");
+  both(row, g.reactionMinFirst, "reaction min 1");
+  for (let k = 1; k <= interiors; k++) {
+    both(row + k, g.reactionMaxFirst, `reaction max ${k + 1}`);
+    both(row + k, g.reactionMinFirst, `reaction min ${k + 1}`);
+  }
+  both(row, g.reactionMaxLast, `reaction max ${supports}`);
+  both(row, g.reactionMinLast, `reaction min ${supports}`);
+  const d = layout.deflection;
+  const input = m.deflection;
+  if (d === null || input === undefined || input.E === null) return;
+  const E = inputRef(ctx, input.E.cell);
+  const I = input.I === null ? "" : inputRef(ctx, input.I.cell);
+  const liveRatio = limitArg(ctx, input.liveLimit, 360);
+  const totalRatio = limitArg(ctx, input.totalLimit, 240);
+  const check = (c: number, what: string): void => put(row, c, deflectionFormula(member, E, I, ctx.model.units, cases, liveRatio, totalRatio, what));
+  if (input.I !== null) {
+    check(d.live, "live");
+    check(d.total, "total");
+    check(d.ratio, "ratio");
+  }
+  check(d.liveLimit, "live limit");
+  check(d.totalLimit, "total limit");
+  check(d.requiredI, "required I");
 }
 
 /** Sum of cells as formula text ("0" when none). */
@@ -564,6 +645,39 @@ function writeColumnHeaders(ctx: Context, row: number): void {
   );
   grid.set(row - 1, layout.wallLength, "Walls and foundations: length and load per unit length");
   layout.channels.forEach((c: Channel, i) => names.push([layout.perLength[i]!, `${c.label} per length (${c.lineUnit})`]));
+  const g = layout.governing;
+  grid.set(
+    row - 1,
+    g.momentMax,
+    "Governing LRFD values (ASCE/SEI 7-22 Sec. 2.3.1) over live load patterns (Sec. 4.3.3: L and Lr on or off span by span and on each overhang; D, S, R everywhere), each with its combination and pattern. L multiplied by the member's LLR factor when all its live load is reducible, else not reduced (conservative). Reactions: first support (a continuous member's interior supports below) and last.",
+  );
+  const governingNames: [number, string][] = [
+    [g.momentMax, `M+ max (${u.moment})`],
+    [g.momentMin, `M- max (${u.moment})`],
+    [g.shearMax, `|V| max (${u.force})`],
+    [g.reactionMaxFirst, `R1 max (${u.force})`],
+    [g.reactionMaxLast, `R2 max (${u.force})`],
+    [g.reactionMinFirst, `R1 min (${u.force})`],
+    [g.reactionMinLast, `R2 min (${u.force})`],
+  ];
+  for (const [c, name] of governingNames) names.push([c, name], [c + 1, `${name.replace(/ \(.*\)$/, "")}: combination; pattern`]);
+  const d = layout.deflection;
+  if (d !== null) {
+    const defl = ctx.model.units === "US" ? "in" : "mm";
+    grid.set(
+      row - 1,
+      d.live,
+      "Deflection (members with E): service live and total load under every live load pattern, each segment held to its span between supports / ratio, an overhang to twice its length / ratio; defaults L/360 live, L/240 total (common practice); ratio <= 1 passes",
+    );
+    names.push(
+      [d.live, `Live deflection (${defl})`],
+      [d.total, `Total deflection (${defl})`],
+      [d.liveLimit, `Live allowable (${defl})`],
+      [d.totalLimit, `Total allowable (${defl})`],
+      [d.ratio, "Deflection ratio"],
+      [d.requiredI, `Required I (${ctx.model.units === "US" ? "in⁴" : "mm⁴"})`],
+    );
+  }
   for (const [c, name] of names) grid.set(row, c, name);
 }
 
@@ -624,7 +738,11 @@ export function planSheet(input: PlanInput): SheetPlan {
   );
   const splitLive = needsSplitLive(model, order, input.placedLoads.filter((p) => position.has(p.member)));
   const channels = channelsOf(model.cases, splitLive, model.units);
-  const layout = layoutOf(channels, model.units);
+  const deflection = order.some((i) => {
+    const m = model.members[i]!;
+    return isFlexural(m.type) && m.deflection?.E != null;
+  });
+  const layout = layoutOf(channels, model.units, deflection);
   const ctx: Context = {
     model,
     layout,
@@ -639,6 +757,7 @@ export function planSheet(input: PlanInput): SheetPlan {
     valueOnly: [],
     baseOf: new Map(deliveries.filter((d) => model.members[d.from]!.type === "wall").map((d) => [d.from, d])),
     wallLengths: new Set(),
+    reducibleLive: new Set(),
   };
   const balance = writeHeader(ctx, input.title);
   let row = balance.headerRow + 1;

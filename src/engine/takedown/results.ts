@@ -19,6 +19,39 @@ export interface MemberResult {
   readonly momentMax: Readonly<Record<string, number>>;
   readonly tributaryArea: number;
   readonly llrFactor: number;
+  /** Beams, girders, joists: governing values by combination set (LRFD: ASCE/SEI 7-22 Sec. 2.3.1) over the live load patterns. */
+  readonly governing?: { readonly LRFD: GoverningSet };
+  /** Beams, girders, joists with E given: the deflection check (in or mm; required I in⁴ or mm⁴); null where not computed (I blank). */
+  readonly deflection?: DeflectionResults;
+}
+
+/** A governing value with the combination and the live load pattern that produce it. */
+export interface GoverningValue {
+  /** kip, kip-ft (US) or kN, kN·m (SI); NaN (null in JSON) when the cell is an error. */
+  readonly value: number;
+  readonly combination: string | null;
+  readonly pattern: string | null;
+}
+
+/** The governing values of one member under one combination set. */
+export interface GoverningSet {
+  readonly momentMax: GoverningValue;
+  readonly momentMin: GoverningValue;
+  readonly shearMax: GoverningValue;
+  /** One per support, in order along the member. */
+  readonly reactionMax: readonly GoverningValue[];
+  /** One per support, in order along the member; negative is uplift. */
+  readonly reactionMin: readonly GoverningValue[];
+}
+
+/** The deflection check of one member. */
+export interface DeflectionResults {
+  readonly live: number | null;
+  readonly total: number | null;
+  readonly liveLimit: number | null;
+  readonly totalLimit: number | null;
+  readonly ratio: number | null;
+  readonly requiredI: number | null;
 }
 
 /** One column (one level of a stack) in the JSON. */
@@ -86,6 +119,51 @@ export function gravityCombos(effects: Readonly<Partial<Record<LoadCase, number>
   return out;
 }
 
+/** A governing value and its "combination; pattern" text cell (the column after the value). */
+function governingAt(read: CellReader, row: number, col: number): GoverningValue {
+  const text = read(row, col + 1);
+  let combination: string | null = null;
+  let pattern: string | null = null;
+  if (typeof text === "string" && !text.startsWith("#")) {
+    // Combination labels hold no "; " (built-in ASCE/SEI 7-22 labels); the pattern may ("L on span 1; Lr off").
+    const cut = text.indexOf("; ");
+    combination = cut < 0 ? text : text.slice(0, cut);
+    pattern = cut < 0 ? null : text.slice(cut + 2);
+  }
+  return { value: numberAt(read, row, col), combination, pattern };
+}
+
+/** The governing LRFD values of a flexural member read from its rows. */
+function governingOf(plan: SheetPlan, read: CellReader, row: number, interiors: number): GoverningSet {
+  const g = plan.layout.governing;
+  const along = (first: number, last: number): GoverningValue[] => [
+    governingAt(read, row, first),
+    ...Array.from({ length: interiors }, (_, k) => governingAt(read, row + 1 + k, first)),
+    governingAt(read, row, last),
+  ];
+  return {
+    momentMax: governingAt(read, row, g.momentMax),
+    momentMin: governingAt(read, row, g.momentMin),
+    shearMax: governingAt(read, row, g.shearMax),
+    reactionMax: along(g.reactionMaxFirst, g.reactionMaxLast),
+    reactionMin: along(g.reactionMinFirst, g.reactionMinLast),
+  };
+}
+
+/** The deflection check of a member with E given (null where the cell was not written). */
+function deflectionOf(plan: SheetPlan, read: CellReader, row: number, withI: boolean): DeflectionResults {
+  const d = plan.layout.deflection!;
+  const at = (col: number): number => numberAt(read, row, col);
+  return {
+    live: withI ? at(d.live) : null,
+    total: withI ? at(d.total) : null,
+    liveLimit: at(d.liveLimit),
+    totalLimit: at(d.totalLimit),
+    ratio: withI ? at(d.ratio) : null,
+    requiredI: at(d.requiredI),
+  };
+}
+
 /**
  * Read the takedown's results from the computed sheet.
  * @param plan - the sheet plan that was written
@@ -129,6 +207,8 @@ export function readResults(plan: SheetPlan, model: TakedownModel, read: CellRea
         momentMax: Object.fromEntries(layout.cases.map((c, k) => [c.key, at(layout.mMax[k]!)])),
         tributaryArea,
         llrFactor,
+        governing: { LRFD: governingOf(plan, read, row, place.interiors ?? 0) },
+        ...(plan.layout.deflection !== null && m.deflection?.E != null ? { deflection: deflectionOf(plan, read, row, m.deflection.I !== null) } : {}),
       };
       continue;
     }

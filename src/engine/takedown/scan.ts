@@ -34,6 +34,7 @@ function resultColumns(plan: SheetPlan, type: ReturnType<typeof typeOf>, live: r
       if (c >= 0) cols.push(layout.vMax[c]!, layout.mMax[c]!);
     }
     if (hasAt) cols.push(layout.areaT, layout.kll, layout.llr);
+    for (const c of Object.values(layout.governing)) cols.push(c, c + 1);
   } else {
     for (const i of live) cols.push(layout.total[i]!);
     if (type === "column") {
@@ -68,7 +69,17 @@ export function scanResults(plan: SheetPlan, model: TakedownModel, read: CellRea
     const m = model.members[place.member]!;
     // The first row's results, then a continuous member's interior reactions (R1, on the rows below).
     const cells: [number, number][] = resultColumns(plan, typeOf(model, place.member), place.live).map((c) => [place.row, c]);
-    for (let k = 1; k <= (place.interiors ?? 0); k++) for (const i of place.live) cells.push([place.row + k, plan.layout.r1[i]!]);
+    for (let k = 1; k <= (place.interiors ?? 0); k++) {
+      for (const i of place.live) cells.push([place.row + k, plan.layout.r1[i]!]);
+      const g = plan.layout.governing;
+      for (const c of [g.reactionMaxFirst, g.reactionMinFirst]) cells.push([place.row + k, c], [place.row + k, c + 1]);
+    }
+    const d = plan.layout.deflection;
+    const input = m.deflection;
+    if (d !== null && input !== undefined && input.E !== null && typeOf(model, place.member) === "flexural") {
+      const written = input.I !== null ? [d.live, d.total, d.ratio, d.liveLimit, d.totalLimit, d.requiredI] : [d.liveLimit, d.totalLimit, d.requiredI];
+      for (const c of written) cells.push([place.row, c]);
+    }
     const badCells = cells.filter(([r, c]) => isBad(read(r, c)));
     if (badCells.length === 0) continue;
     const bad = badCells.map(([, c]) => c);

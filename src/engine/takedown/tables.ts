@@ -50,7 +50,8 @@ export const ZONES_SPEC = {
 
 /**
  * Members: docs/interface.md section 2, plus wR (rain line load) and the optional overhangs beyond each
- * support (Start overhang, End overhang), which lengthen the member past its span.
+ * support (Start overhang, End overhang), which lengthen the member past its span; the optional
+ * deflection columns E (ksi, MPa), I (in⁴, mm⁴), Live limit and Total limit (span ratios: 360 or L/360).
  */
 export const MEMBERS_SPEC = {
   title: "Members",
@@ -73,6 +74,10 @@ export const MEMBERS_SPEC = {
     wR: spec("wR", "lineLoad"),
     startOverhang: spec("Start overhang", "length"),
     endOverhang: spec("End overhang", "length"),
+    E: spec("E", "modulus"),
+    I: spec("I", "inertia"),
+    liveLimit: spec("Live limit"),
+    totalLimit: spec("Total limit"),
   },
 } as const satisfies TableSpec<string>;
 

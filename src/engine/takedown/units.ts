@@ -6,7 +6,7 @@
 import type { UnitSystem } from "./types";
 
 /** What a column holds, for its unit. */
-export type Quantity = "none" | "length" | "areaLoad" | "lineLoad" | "force" | "lineOrForce";
+export type Quantity = "none" | "length" | "areaLoad" | "lineLoad" | "force" | "lineOrForce" | "modulus" | "inertia";
 
 /** Accepted unit spellings after {@link normaliseUnit}, per quantity and system. */
 const ACCEPTED: Readonly<Record<Exclude<Quantity, "none" | "lineOrForce">, Readonly<Record<UnitSystem, readonly string[]>>>> = {
@@ -14,6 +14,8 @@ const ACCEPTED: Readonly<Record<Exclude<Quantity, "none" | "lineOrForce">, Reado
   areaLoad: { US: ["psf", "lb/ft2", "lbf/ft2", "lb/sf", "#/sf", "#/ft2"], SI: ["kpa", "kn/m2"] },
   lineLoad: { US: ["plf", "lb/ft", "lbf/ft", "#/ft"], SI: ["kn/m"] },
   force: { US: ["lb", "lbs", "lbf", "#"], SI: ["kn"] },
+  modulus: { US: ["ksi"], SI: ["mpa", "n/mm2"] },
+  inertia: { US: ["in4", "inch4"], SI: ["mm4"] },
 };
 
 /** Unit each quantity is read in, as shown to the user. */
@@ -23,6 +25,8 @@ export const UNIT_NAMES: Readonly<Record<Exclude<Quantity, "none">, Readonly<Rec
   lineLoad: { US: "plf", SI: "kN/m" },
   force: { US: "lb", SI: "kN" },
   lineOrForce: { US: "plf (line) or lb (point)", SI: "kN/m (line) or kN (point)" },
+  modulus: { US: "ksi", SI: "MPa" },
+  inertia: { US: "in⁴", SI: "mm⁴" },
 };
 
 /** Units of the results written to the generated sheet. */
@@ -37,7 +41,8 @@ export function normaliseUnit(unit: string): string {
     .toLowerCase()
     .replace(/\s+/g, "")
     .replace(/²/g, "2")
-    .replace(/\^2/g, "2");
+    .replace(/⁴/g, "4")
+    .replace(/\^([24])/g, "$1");
 }
 
 function accepts(quantity: Exclude<Quantity, "none" | "lineOrForce">, units: UnitSystem, unit: string): boolean {
@@ -77,5 +82,5 @@ export function isKnownUnit(unit: string): boolean {
   if (n === "") return false;
   if (OTHER_UNITS.includes(n)) return true;
   const systems: readonly UnitSystem[] = ["US", "SI"];
-  return systems.some((s) => (["length", "areaLoad", "lineLoad", "force", "lineOrForce"] as const).some((q) => unitFits(q, s, unit)));
+  return systems.some((s) => (["length", "areaLoad", "lineLoad", "force", "lineOrForce", "modulus", "inertia"] as const).some((q) => unitFits(q, s, unit)));
 }
