@@ -498,8 +498,8 @@ function writeWallReduction(ctx: Context, m: Member, row: number, live: readonly
   } else {
     const cell = sheetCellRef(m.kll.cell);
     grid.set(row, layout.kll, f(`IF(${cell}="","${none}",${inputRef(ctx, m.kll.cell)})`));
-    grid.set(row, layout.kllAt, f(`IF(ISNUMBER(${kll}),${kll}*${a1(row, layout.areaT)},"")`));
-    grid.set(row, layout.llr, f(`IF(ISNUMBER(${kll}),${writer.llrFactor(kll, a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)},1)`));
+    grid.set(row, layout.kllAt, f(`IF(${cell}="","",${kll}*${a1(row, layout.areaT)})`));
+    grid.set(row, layout.llr, f(`IF(${cell}="",1,${writer.llrFactor(kll, a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)})`));
   }
   const llr = a1(row, layout.llr);
   const lred = totalOf("Lred");

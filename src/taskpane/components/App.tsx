@@ -75,7 +75,7 @@ interface Progress {
   readonly message: string;
 }
 
-const NO_CHOICE: TableChoice = { zones: "", members: "", loads: "" };
+const NO_CHOICE: TableChoice = { zones: "", members: "", loads: "", bearings: "" };
 
 /** The task pane. */
 export function App({ session, connected }: AppProps): React.JSX.Element {

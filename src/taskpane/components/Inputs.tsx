@@ -3,7 +3,7 @@ import * as React from "react";
 import { Accordion, AccordionHeader, AccordionItem, AccordionPanel, Field, Radio, RadioGroup, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
 import type { TableInfo } from "../../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../../workbook/takedown-api";
-import { ROLES, ROLE_COLUMNS, ROLE_TITLES, matchColumns, missingColumns, type TableRole } from "../schema";
+import { OPTIONAL_ROLES, ROLES, ROLE_COLUMNS, ROLE_TITLES, matchColumns, missingColumns, type TableRole } from "../schema";
 import type { TableChoice } from "../session";
 
 const useStyles = makeStyles({
@@ -25,28 +25,29 @@ export interface TablePickerProps {
   readonly onChange: (role: TableRole, name: string) => void;
 }
 
-/** One list per role; the loads table is optional. */
+/** One list per role; the loads and bearings tables are optional. */
 export function TablePicker(props: TablePickerProps): React.JSX.Element {
   const styles = useStyles();
   return (
     <div className={styles.stack}>
       {ROLES.map((role) => {
-        const found = props.detected.includes(role) && props.choice[role] !== "";
+        const found = props.detected.includes(role) && (props.choice[role] ?? "") !== "";
+        const optional = OPTIONAL_ROLES.has(role);
         return (
           <Field
             key={role}
-            label={ROLE_TITLES[role] + (role === "loads" ? " (optional)" : "")}
+            label={ROLE_TITLES[role] + (optional ? " (optional)" : "")}
             hint={found ? "Found by its column headers." : undefined}
-            validationState={role !== "loads" && props.choice[role] === "" ? "warning" : "none"}
-            validationMessage={role !== "loads" && props.choice[role] === "" ? "No table with the expected headers; pick one." : undefined}
+            validationState={!optional && (props.choice[role] ?? "") === "" ? "warning" : "none"}
+            validationMessage={!optional && (props.choice[role] ?? "") === "" ? "No table with the expected headers; pick one." : undefined}
           >
             <Select
               data-role={role}
-              value={props.choice[role]}
+              value={props.choice[role] ?? ""}
               disabled={props.disabled}
               onChange={(_, data) => props.onChange(role, data.value)}
             >
-              <option value="">{role === "loads" ? "None" : "Pick a table"}</option>
+              <option value="">{optional ? "None" : "Pick a table"}</option>
               {props.tables.map((t) => (
                 <option key={t.name} value={t.name}>
                   {tableLabel(t)}
@@ -73,7 +74,7 @@ export interface ColumnMatcherProps {
 /** For each chosen table, each expected column with its units and the user's column that carries it. */
 export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
   const styles = useStyles();
-  const chosen = ROLES.filter((r) => props.choice[r] !== "");
+  const chosen = ROLES.filter((r) => (props.choice[r] ?? "") !== "");
   const openByDefault = chosen.filter((role) => {
     const t = props.tables.find((x) => x.name === props.choice[role]);
     return t !== undefined && missingColumns(role, t.headers, props.mapping).length > 0;
