@@ -33,8 +33,8 @@ function sheets(edit?: (rows: RawCellContent[][], col: (h: string) => number) =>
   return out;
 }
 
-async function build(s: Sheets): Promise<Built> {
-  return buildOn(s, { zones: "Zones", members: "Members", bearings: "Bearings", units: "SI" });
+async function build(s: Sheets, native = false): Promise<Built> {
+  return buildOn(s, { zones: "Zones", members: "Members", bearings: "Bearings", units: "SI", ...(native ? { native } : {}) });
 }
 
 // The inputs as typed in make-buildings.ts, read here from the layout constants and restated.
@@ -152,6 +152,19 @@ describe("sample (c): two-storey timber-frame house", () => {
     close(resultOf(port, "W1-B", "L reduced (kN)"), factor * live);
     // W1-A keeps its blank KLL: no reduction, said so in its KLL cell.
     expect(resultOf(port, "W1-A", "KLL")).toBe("no reduction (KLL blank)");
+    expect(resultOf(port, "W1-A", "LLR factor")).toBe(1);
+  });
+
+  it("the hand-off version (classic functions) writes the same wall reduction", async () => {
+    const { port, result } = await build(
+      sheets((rows, col) => {
+        rows.find((r) => r[0] === "W1-B")![col("KLL")] = 2;
+      }),
+      true,
+    );
+    expect(result.problems).toEqual([]);
+    const areaT = count * ((10 * s * l) / 8);
+    close(resultOf(port, "W1-B", "LLR factor"), Math.max(0.5, 0.25 + 4.57 / Math.sqrt(2 * areaT)));
     expect(resultOf(port, "W1-A", "LLR factor")).toBe(1);
   });
 });
