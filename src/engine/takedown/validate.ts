@@ -125,7 +125,7 @@ function checkWallBase(m: Member, byMark: ReadonlyMap<string, Member>, problems:
   if (!target.valid) {
     // Left out for a problem of its own: without this the wall's load would vanish with no word but the balance's.
     problems.push(
-      problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: stands on ${target.mark}, which is left out of the takedown (see the problem on its row); ${m.mark}'s load reaches no foundation and is missing from the load balance until ${target.mark} is fixed.`, m.mark),
+      problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: stands on ${target.mark}, which is left out of the takedown (see the problem naming it); ${m.mark}'s load reaches no foundation and is missing from the load balance until ${target.mark} is fixed.`, m.mark),
     );
     return null;
   }
