@@ -2,8 +2,8 @@
  * The pane on the demo page with the two-storey SI sample (pane-demo.html?sample=two-storey): the
  * table step finds its Bearings table, and the build makes each floor joist one continuous member
  * over three supports, as `loadpath takedown --bearings` does. The joist's reactions drawn in the
- * member sheet are checked against AISC Steel Construction Manual Table 3-23 case 29 (continuous
- * beam, two equal spans, uniform load: 3wl/8, 10wl/8, 3wl/8; recalled from memory). Needs
+ * member sheet are checked against AISC Steel Construction Manual Table 3-23 (continuous beam,
+ * two equal spans, uniform load on both: 3wl/8, 10wl/8, 3wl/8; recalled from memory). Needs
  * `npm run build` and Chromium.
  */
 import { mkdirSync, readFileSync } from "node:fs";

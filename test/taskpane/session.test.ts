@@ -95,7 +95,7 @@ describe("the Bearings table (continuous members)", () => {
     expect(calls[0]).not.toHaveProperty("bearings");
   });
 
-  it("builds a continuous member as the command line does: a 2 x 15 ft beam over three supports takes 3wl/8, 10wl/8, 3wl/8 (AISC Manual Table 3-23 case 29, recalled from memory)", async () => {
+  it("builds a continuous member as the command line does: a 2 x 15 ft beam over three supports takes 3wl/8, 10wl/8, 3wl/8 (AISC Manual Table 3-23, continuous beam, two equal spans, uniform load on both spans; recalled from memory)", async () => {
     const port = await MemoryWorkbookPort.create({
       sheets: {
         Zones: [["Zone", "D (psf)"], ["F", 100]],

@@ -13,6 +13,7 @@ import { describe, expect, it } from "vitest";
 import type { RawCellContent } from "hyperformula";
 import { TWO_STOREY, twoStoreyHouse } from "../../sample-workbooks/make-buildings";
 import { readXlsx } from "../../src/workbook/xlsx";
+import { builtInCombinations, envelope } from "../../src/engine/envelope";
 import { buildOn, handReactions, resultOf, type Built } from "./takedown-helpers";
 
 function close(actual: unknown, expected: number, rel = 1e-12): void {
@@ -59,7 +60,7 @@ describe("sample (c): two-storey timber-frame house", () => {
     for (let i = 1; i <= count; i++) expect(result.json!.members[`FJ${i}`]!.reactions.D).toHaveLength(3);
   });
 
-  it("floor joist: two equal spans under uniform load, AISC Steel Construction Manual Table 3-23 case 29 (recalled from memory): R = 3wl/8, 10wl/8, 3wl/8", async () => {
+  it("floor joist: two equal spans under uniform load, AISC Steel Construction Manual Table 3-23, continuous beam, two equal spans, uniform load on both spans (recalled from memory): R = 3wl/8, 10wl/8, 3wl/8", async () => {
     const { result } = await build(sheets());
     for (const c of ["D", "L"] as const) {
       const w = joist[c];
@@ -67,10 +68,27 @@ describe("sample (c): two-storey timber-frame house", () => {
       close(r[0]!, (3 * w * l) / 8);
       close(r[1]!, (10 * w * l) / 8);
       close(r[2]!, (3 * w * l) / 8);
-      // Case 29: largest moment -wl^2/8 over the middle support; the largest sagging moment 9wl^2/128 at 3l/8.
+      // The same case: largest moment -wl^2/8 over the middle support; the largest sagging moment 9wl^2/128 at 3l/8.
       close(result.json!.members.FJ1!.momentMax[c]!, (9 * w * l * l) / 128);
       close(result.json!.members.FJ1!.shearMax[c]!, (5 * w * l) / 8);
     }
+  });
+
+  it("pattern live load on the floor joist (envelope engine): Table 3-23, continuous beam, two equal spans, uniform load on one span (recalled from memory): R1 = 7wl/16, R3 = -wl/16, M+ = 49wl^2/512", () => {
+    const line = (a: number, b: number, w: number) => ({ kind: "line" as const, start: a, end: b, w1: w, w2: w });
+    const r = envelope(
+      { span: 2 * l, supports: [0, l, 2 * l].map((x) => ({ x, type: "pin" as const })), loads: { D: [line(0, 2 * l, joist.D)], L: [line(0, 2 * l, joist.L)] } },
+      builtInCombinations({ method: "LRFD", halfLive: false }),
+    );
+    if (!r.ok) throw new Error(r.error.message);
+    // Largest end reaction: 1.2D everywhere (3wl/8) + 1.6L on the near span only (7wl/16), ASCE/SEI 7-22 Sec. 2.3.1 factors as recalled.
+    close(r.value.reactionMax[0]!.value, 1.2 * ((3 * joist.D * l) / 8) + 1.6 * ((7 * joist.L * l) / 16), 1e-10);
+    expect(r.value.reactionMax[0]!.pattern).toBe("L on span 1");
+    // Least end reaction: live load on the far span only lifts the near end by wl/16.
+    const least = Math.min(1.4 * ((3 * joist.D * l) / 8), 1.2 * ((3 * joist.D * l) / 8) - 1.6 * ((joist.L * l) / 16), 0.9 * ((3 * joist.D * l) / 8));
+    close(r.value.reactionMin[0]!.value, least, 1e-10);
+    // Largest interior reaction: both spans loaded, 10wl/8 of each case.
+    close(r.value.reactionMax[1]!.value, 1.2 * ((10 * joist.D * l) / 8) + 1.6 * ((10 * joist.L * l) / 8), 1e-10);
   });
 
   it("the joists' interior reactions arrive at the middle wall W1-B, which spreads them over its 6 m, with its own weight", async () => {
