@@ -19,6 +19,8 @@ const DEMO_ENTRY = "./src/taskpane-demo/demo.ts";
 const DEMO_SAMPLE = process.env.LOADPATH_DEMO_SAMPLE || "sample-workbooks/steel-office-us.xlsx";
 /** The SI sample building, opened by pane-demo.html?sample=timber. */
 const DEMO_SAMPLE_SI = "sample-workbooks/timber-house-si.xlsx";
+/** The two-storey SI sample (continuous joists, walls), opened by pane-demo.html?sample=two-storey. */
+const DEMO_SAMPLE_TWO_STOREY = "sample-workbooks/two-storey-house-si.xlsx";
 
 const DEV_URL = "https://localhost:3000/";
 const PROD_URL = process.env.LOADPATH_URL || "https://localhost:3000/";
@@ -150,6 +152,15 @@ module.exports = async (env, argv) => {
                 {
                   from: DEMO_SAMPLE_SI,
                   to: "samples/takedown-sample-si.json",
+                  transform: { transformer: (content) => require("./src/taskpane-demo/sample-json.cjs").xlsxToJson(content), cache: false },
+                },
+              ]
+            : []),
+          ...(fs.existsSync(path.resolve(__dirname, DEMO_SAMPLE_TWO_STOREY))
+            ? [
+                {
+                  from: DEMO_SAMPLE_TWO_STOREY,
+                  to: "samples/takedown-sample-two-storey.json",
                   transform: { transformer: (content) => require("./src/taskpane-demo/sample-json.cjs").xlsxToJson(content), cache: false },
                 },
               ]

@@ -19,6 +19,15 @@
  *     bearers, cantilevering 1.2 m past the second line as a balcony (End overhang), bearers on
  *     posts; roof rafters on roof beams with a 0.6 m eave overhang, roof beams on roof posts that
  *     stand on the floor posts, posts on pad footings.
+ * (c) two-storey-house-si.xlsx: a two-storey timber-frame house in SI units, 8.4 m by 6.0 m.
+ *     Bearing walls on lines A (x = 0), B (x = 4.2 m, ground storey only) and C (x = 8.4 m).
+ *     Floor joists at 600 mm span 8.4 m, continuous over the middle wall W1-B (a Bearings row
+ *     each): two equal spans of 4.2 m. Roof trusses at 600 mm span 8.4 m from wall W2-A to line C.
+ *     Upper-storey walls are stacked on the ground-storey walls (W2-A on W1-A, W2-C2 on W1-C),
+ *     which stand on strip footings; on line C a 3.6 m garage opening below the first floor is
+ *     bridged by beam B2-C on two posts, and the upper wall W2-C1 stands on that beam (Start at,
+ *     End at), so the beam takes the wall's load as a line load. The walls' KLL cells are blank:
+ *     their live load is not reduced.
  *
  * Every mark, dimension and load is invented for the demo.
  */
@@ -204,6 +213,68 @@ export function timberHouse(): SampleTable[] {
   ];
 }
 
+/** Layout of sample (c), shared with its tests (test/cli/sample-two-storey.test.ts). */
+export const TWO_STOREY = {
+  /** Joist and truss spacing (m); the first at half a spacing from the end wall. */
+  spacing: 0.6,
+  /** Bay between wall lines A-B and B-C (m): the continuous joists' two equal spans. */
+  bay: 4.2,
+  /** Length of the walls on lines A and B (m). */
+  wallLength: 6.0,
+  /** The garage opening on line C, bridged by beam B2-C (m from the house's end, y = 0). */
+  opening: 3.6,
+  /** Own weight of every stud wall, kN per metre of wall (wD). */
+  wallWeight: 1.35,
+} as const;
+
+/** (c) The two-storey timber-frame house, SI units. */
+export function twoStoreyHouse(): SampleTable[] {
+  const { spacing, bay, wallLength, opening, wallWeight } = TWO_STOREY;
+  const members: Cell[][] = [];
+  const bearings: Cell[][] = [];
+  const count = Math.round(wallLength / spacing);
+  for (let i = 0; i < count; i++) {
+    const y = round(spacing / 2 + spacing * i);
+    const overOpening = y < opening;
+    // Roof trusses: from the upper wall on line A to the upper wall on line C (on the beam over the opening, or on the wall stacked on W1-C).
+    members.push([`RT${i + 1}`, "joist", "Roof", 2 * bay, "ROOF", spacing, "W2-A", null, overOpening ? "W2-C1" : "W2-C2", null, null, 0.05]);
+    // Floor joists, continuous over W1-B: on line C they bear on beam B2-C at y, or on wall W1-C.
+    const joist = `FJ${i + 1}`;
+    members.push([joist, "joist", "2", 2 * bay, "FLOOR", spacing, "W1-A", null, overOpening ? "B2-C" : "W1-C", overOpening ? y : null, null, 0.08]);
+    bearings.push([joist, "W1-B", bay, null]);
+  }
+  members.push(
+    ["W2-A", "wall", "2", wallLength, null, null, "W1-A", null, null, null, null, wallWeight],
+    ["W2-C1", "wall", "2", null, null, null, "B2-C", 0, null, opening, null, wallWeight],
+    ["W2-C2", "wall", "2", round(wallLength - opening), null, null, "W1-C", null, null, null, null, wallWeight],
+    ["B2-C", "beam", "2", opening, null, null, "PC1", null, "PC2", null, null, 0.3],
+    ["W1-A", "wall", "1", wallLength, null, null, "SF-A", null, null, null, null, wallWeight],
+    ["W1-B", "wall", "1", wallLength, null, null, "SF-B", null, null, null, null, wallWeight],
+    ["W1-C", "wall", "1", round(wallLength - opening), null, null, "SF-C", null, null, null, null, wallWeight],
+    ["PC1", "post", "1", 2.7, null, null, "FC1", null, null, null, null, 0.15],
+    ["PC2", "post", "1", 2.7, null, null, "FC2", null, null, null, null, 0.15],
+  );
+  for (const f of ["SF-A", "SF-B", "SF-C", "FC1", "FC2"]) members.push([f, "foundation", null, null, null, null, null, null, null, null, null, null]);
+  return [
+    {
+      sheet: "Zones",
+      name: "Zones",
+      headers: ["Zone", "D (kPa)", "L (kPa)", "Lr (kPa)", "S (kPa)", "Reducible"],
+      rows: [
+        ["ROOF", 0.85, null, 0.96, 1.0, "no"],
+        ["FLOOR", 0.7, 1.9, null, null, "yes"],
+      ],
+    },
+    {
+      sheet: "Members",
+      name: "Members",
+      headers: ["Mark", "Type", "Level", "Span (m)", "Zone", "Trib (m)", "Start support", "Start at (m)", "End support", "End at (m)", "KLL", "wD (kN/m)"],
+      rows: members,
+    },
+    { sheet: "Bearings", name: "Bearings", headers: ["Mark", "Support", "At (m)", "Support at (m)"], rows: bearings },
+  ];
+}
+
 function round(x: number): number {
   return Math.round(x * 1000) / 1000;
 }
@@ -212,7 +283,12 @@ async function main(): Promise<void> {
   const dir = __dirname;
   await writeWorkbook(join(dir, "steel-office-us.xlsx"), steelOffice(), "Sample (a): three-level steel office, US units (ft, psf, plf, lb). Run: loadpath takedown steel-office-us.xlsx -o out.xlsx");
   await writeWorkbook(join(dir, "timber-house-si.xlsx"), timberHouse(), "Sample (b): timber house, SI units (m, kPa, kN/m, kN). Run: loadpath takedown timber-house-si.xlsx -o out.xlsx --units SI");
-  console.log("wrote sample-workbooks/steel-office-us.xlsx and sample-workbooks/timber-house-si.xlsx");
+  await writeWorkbook(
+    join(dir, "two-storey-house-si.xlsx"),
+    twoStoreyHouse(),
+    "Sample (c): two-storey timber-frame house, SI units (m, kPa, kN/m, kN): floor joists continuous over a middle bearing wall, upper walls stacked on lower walls and, over a garage opening, standing on a beam. Run: loadpath takedown two-storey-house-si.xlsx -o out.xlsx --units SI",
+  );
+  console.log("wrote sample-workbooks/steel-office-us.xlsx, sample-workbooks/timber-house-si.xlsx and sample-workbooks/two-storey-house-si.xlsx");
 }
 
 if (require.main === module) {

@@ -20,6 +20,9 @@ export const SAMPLE_FILE = "takedown-sample.json";
 /** The SI sample building served beside the demo page (pane-demo.html?sample=timber). */
 export const SAMPLE_FILE_SI = "takedown-sample-si.json";
 
+/** The two-storey SI sample (continuous joists from a Bearings table, walls), pane-demo.html?sample=two-storey. */
+export const SAMPLE_FILE_TWO_STOREY = "takedown-sample-two-storey.json";
+
 /** A table of the sample: position, headers and body rows. */
 export interface SampleTable {
   readonly name: string;

@@ -7,7 +7,7 @@ import type { LoadedBundle } from "../workbook/headless-plugin";
 import { MemoryWorkbookPort } from "../workbook/memory-port";
 import { mistakesOf, type SampleJson } from "./sample-data";
 
-export { SAMPLE_FILE, SAMPLE_FILE_SI } from "./sample-data";
+export { SAMPLE_FILE, SAMPLE_FILE_SI, SAMPLE_FILE_TWO_STOREY } from "./sample-data";
 
 /** Fetch the sample workbook made at build time. */
 export async function loadSample(url: string): Promise<SampleJson> {

@@ -1,21 +1,24 @@
 /**
- * The input tables as the pane presents them: the three roles, their expected columns with the
+ * The input tables as the pane presents them: the four roles, their expected columns with the
  * units shown beside each, and which of the workbook's tables plays which role. The expected
  * columns and the header matching are the takedown engine's (src/engine/takedown/tables.ts);
  * this module only adds the words shown in the pane.
  */
-import { foldHeader, LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC, type TableSpec } from "../engine/takedown/tables";
+import { BEARINGS_SPEC, foldHeader, LOADS_SPEC, matchTable, MEMBERS_SPEC, ZONES_SPEC, type TableSpec } from "../engine/takedown/tables";
 import { a1, columnLetter } from "../engine/a1";
 import type { TableData } from "../engine/takedown/types";
 import { UNIT_NAMES } from "../engine/takedown/units";
 import type { TableInfo } from "../workbook/port";
 import type { ColumnMapping, UnitSystem } from "../workbook/takedown-api";
 
-/** The three input tables of docs/interface.md section 2. */
-export type TableRole = "zones" | "members" | "loads";
+/** The input tables of docs/interface.md section 2 (Loads and Bearings optional). */
+export type TableRole = "zones" | "members" | "loads" | "bearings";
 
 /** Roles in the order the pane lists them. */
-export const ROLES: readonly TableRole[] = ["zones", "members", "loads"];
+export const ROLES: readonly TableRole[] = ["zones", "members", "loads", "bearings"];
+
+/** Roles the takedown can do without. */
+export const OPTIONAL_ROLES: ReadonlySet<TableRole> = new Set(["loads", "bearings"]);
 
 /** One expected column as the pane shows it. */
 export interface ColumnView {
@@ -27,7 +30,7 @@ export interface ColumnView {
   readonly hint: string;
 }
 
-const SPECS: Readonly<Record<TableRole, TableSpec<string>>> = { zones: ZONES_SPEC, members: MEMBERS_SPEC, loads: LOADS_SPEC };
+const SPECS: Readonly<Record<TableRole, TableSpec<string>>> = { zones: ZONES_SPEC, members: MEMBERS_SPEC, loads: LOADS_SPEC, bearings: BEARINGS_SPEC };
 
 /** Plain words for each default header (display only). */
 const HINTS: Readonly<Record<string, string>> = {
@@ -61,6 +64,9 @@ const HINTS: Readonly<Record<string, string>> = {
   Width: "width loaded (area loads)",
   From: "start along the member",
   To: "end along the member",
+  Support: "mark of what holds the member there (interior support)",
+  At: "position of the support along the member",
+  "Support at": "position along that support (beam, girder or joist)",
 };
 
 function viewsOf(spec: TableSpec<string>): ColumnView[] {
@@ -77,6 +83,7 @@ export const ROLE_COLUMNS: Readonly<Record<TableRole, readonly ColumnView[]>> = 
   zones: viewsOf(ZONES_SPEC),
   members: viewsOf(MEMBERS_SPEC),
   loads: viewsOf(LOADS_SPEC),
+  bearings: viewsOf(BEARINGS_SPEC),
 };
 
 /** Plain-words title of each role. */
@@ -84,6 +91,7 @@ export const ROLE_TITLES: Readonly<Record<TableRole, string>> = {
   zones: "Load zones",
   members: "Members",
   loads: "Extra loads",
+  bearings: "Bearings (continuous members)",
 };
 
 /** The engine's match of a header row (units are not judged here: the build reports them). */
@@ -123,7 +131,7 @@ export function detectRoles(tables: readonly TableInfo[], mapping: ColumnMapping
   const out: Partial<Record<TableRole, string>> = {};
   const taken = new Set<string>();
   // Members first: its required columns are the most specific, so no other table is taken for it.
-  for (const role of ["members", "loads", "zones"] as const) {
+  for (const role of ["members", "loads", "bearings", "zones"] as const) {
     const hit = tables.find(
       (t) => !taken.has(t.name) && missingColumns(role, t.headers, mapping).length === 0 && (role !== "zones" || hasLoadCase(t.headers, mapping)),
     );

@@ -19,8 +19,11 @@ export const SETTING_KEYS = {
 /** Default name of the generated sheet (docs/interface.md section 3). */
 export const DEFAULT_SHEET = "Takedown";
 
-/** The input tables chosen for each role ("" = none). */
-export type TableChoice = Readonly<Record<TableRole, string>>;
+/**
+ * The input tables chosen for each role ("" = none). Bearings may be absent: choices saved in a
+ * workbook before the pane offered a Bearings table have none.
+ */
+export type TableChoice = Readonly<Record<Exclude<TableRole, "bearings">, string>> & { readonly bearings?: string };
 
 /** What the pane remembers in the workbook. */
 export interface PaneSettings {
@@ -167,9 +170,9 @@ export class PaneSession {
     const tables = all.filter((t) => t.sheet !== this.sheetName && t.sheet !== SETTINGS_SHEET);
     const names = new Set(tables.map((t) => t.name));
     const found = detectRoles(tables, mapping);
-    const choice: Record<TableRole, string> = { zones: "", members: "", loads: "" };
+    const choice: Record<TableRole, string> = { zones: "", members: "", loads: "", bearings: "" };
     const detected: TableRole[] = [];
-    for (const role of ["zones", "members", "loads"] as const) {
+    for (const role of ["zones", "members", "loads", "bearings"] as const) {
       const keep = saved?.[role];
       if (keep && names.has(keep)) choice[role] = keep;
       else if (found[role]) {
@@ -202,7 +205,9 @@ export class PaneSession {
         zones: choice.zones,
         members: choice.members,
         ...(choice.loads ? { loads: choice.loads } : {}),
-        ...(settings.bearings ? { bearings: settings.bearings } : {}),
+        // interior supports of continuous members, as the command line's --bearings (the table
+        // chosen in the pane, else the one kept in the saved matching)
+        ...((choice.bearings ?? "") || settings.bearings ? { bearings: (choice.bearings ?? "") || settings.bearings } : {}),
         units: settings.units,
         mapping: settings.mapping,
         ...(settings.headerRows ? { headerRows: settings.headerRows } : {}),

@@ -74,6 +74,8 @@ describe.skipIf(missing !== null)("the pane on the demo page", () => {
     expect(await page.inputValue('[data-role="members"]')).toBe(findTable(s, "members").name);
     const loads = s.tables.find((t) => findTable(s, "loads", true)?.name === t.name);
     expect(await page.inputValue('[data-role="loads"]')).toBe(loads?.name ?? "");
+    // The optional Bearings list (continuous members): the sample has no such table, so None.
+    expect(await page.inputValue('[data-role="bearings"]')).toBe("");
     await page.close();
   });
 

@@ -139,7 +139,11 @@ describe.each(cases)("loadpath export: $name", (c) => {
     { name: "Gnumeric", present: gnumeric, recalc: recalcWithGnumeric },
     { name: "LibreOffice Calc", present: libreOffice, recalc: recalcWithLibreOffice },
   ]) {
-    it.skipIf(!program.present)(`after a zone live load and a span change, ${program.name} recalculates every column load and the balance as the headless engine does`, async () => {
+    it.skipIf(!program.present)(`after a zone live load and a span change, ${program.name} recalculates every column load and the balance as the headless engine does`, async (ctx) => {
+      // A continuous member or a beam carrying a wall is written as values (listed on the notice
+      // sheet: the classic functions cannot spell it), so no program can follow an edit through it;
+      // the sample with those (two-storey-house-si.xlsx) is checked here only through its cached values.
+      if (report.valueOnly.length > 0) ctx.skip();
       const spec = takedownsOf(await readXlsx(input))[0]!;
       const excel = new ExcelJS.Workbook();
       await excel.xlsx.readFile(input);

@@ -11,6 +11,8 @@ import type { BuildTakedown, TakedownOptions } from "../../src/workbook/takedown
 import { PaneSession, breathingProgress } from "../../src/taskpane/session";
 import { SETTINGS_SHEET } from "../../src/workbook/saved-matching";
 import { FakeExcel } from "../workbook/office-fake";
+import { MemoryWorkbookPort } from "../../src/workbook/memory-port";
+import { buildTakedown } from "../../src/workbook/takedown-build";
 
 const ZONES = [["Zone", "D (psf)", "L (psf)", "Reducible"], ["Office", 65, 50, "yes"]];
 const MEMBERS = [
@@ -45,7 +47,7 @@ describe("finding the tables", () => {
     excel();
     const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
     const scan = await session.scan(null, {});
-    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblFraming", loads: "" });
+    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblFraming", loads: "", bearings: "" });
     expect(scan.detected).toEqual(["zones", "members"]);
   });
 
@@ -61,9 +63,62 @@ describe("finding the tables", () => {
     const fake = excel({ Takedown: [[GENERATED_MARKER], ["Mark", "Type", "Level", "Span", "Start support"]] });
     const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild([]));
     const scan = await session.scan({ zones: "tblZones", members: "tblNotes", loads: "gone" }, {});
-    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblNotes", loads: "" });
+    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblNotes", loads: "", bearings: "" });
     expect(scan.tables.map((t) => t.name)).not.toContain("Takedown");
     expect(fake.syncs).toBe(3);
+  });
+});
+
+describe("the Bearings table (continuous members)", () => {
+  const BEARINGS = [["Mark", "Support", "At (ft)", "Support at (ft)"], ["B1", "G3", 15, 10]];
+
+  it("is found by its headers and passed to the builder as the command line's --bearings", async () => {
+    const fake = new FakeExcel({}, [
+      { name: "tblZones", sheet: "Input", rows: ZONES },
+      { name: "tblFraming", sheet: "Input", rows: MEMBERS, at: "H1" },
+      { name: "tblInterior", sheet: "Input", rows: BEARINGS, at: "T1" },
+    ]);
+    vi.stubGlobal("Excel", fake.excel());
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    const scan = await session.scan(null, {});
+    expect(scan.choice).toEqual({ zones: "tblZones", members: "tblFraming", loads: "", bearings: "tblInterior" });
+    expect(scan.detected).toEqual(["zones", "members", "bearings"]);
+    await session.run(scan.choice, { mapping: {}, units: "US" }, () => {});
+    expect(calls[0]?.bearings).toBe("tblInterior");
+  });
+
+  it("a choice saved before the pane offered Bearings (no bearings key) builds without one", async () => {
+    excel();
+    const calls: TakedownOptions[] = [];
+    const session = new PaneSession(new OfficeWorkbookPort(), recordingBuild(calls));
+    await session.run({ zones: "tblZones", members: "tblFraming", loads: "" }, { mapping: {}, units: "US" }, () => {});
+    expect(calls[0]).not.toHaveProperty("bearings");
+  });
+
+  it("builds a continuous member as the command line does: a 2 x 15 ft beam over three supports takes 3wl/8, 10wl/8, 3wl/8 (AISC Manual Table 3-23, continuous beam, two equal spans, uniform load on both spans; recalled from memory)", async () => {
+    const port = await MemoryWorkbookPort.create({
+      sheets: {
+        Zones: [["Zone", "D (psf)"], ["F", 100]],
+        Members: [["Mark", "Type", "Span (ft)", "Zone", "Trib (ft)", "Start support", "End support"], ["B1", "beam", 30, "F", 10, "W1", "W2"], ["W1", "wall"], ["W2", "wall"], ["W3", "wall"]],
+        Bearings: [["Mark", "Support", "At (ft)"], ["B1", "W3", 15]],
+      },
+      tables: [
+        { name: "tblZones", sheet: "Zones", ref: "A1:B2" },
+        { name: "tblMembers", sheet: "Members", ref: "A1:G5" },
+        { name: "tblBearings", sheet: "Bearings", ref: "A1:C2" },
+      ],
+    });
+    const session = new PaneSession(port, buildTakedown);
+    const scan = await session.scan(null, {});
+    expect(scan.choice.bearings).toBe("tblBearings");
+    const outcome = await session.run(scan.choice, { mapping: {}, units: "US" }, () => {});
+    if (outcome.kind !== "done") throw new Error(outcome.kind);
+    expect(outcome.result.problems).toEqual([]);
+    const w = (100 * 10) / 1000; // kip/ft
+    const r = outcome.result.json!.members.B1!.reactions.D!;
+    [(3 * w * 15) / 8, (10 * w * 15) / 8, (3 * w * 15) / 8].forEach((v, k) => expect(Math.abs(r[k]! - v)).toBeLessThan(1e-12));
+    expect(outcome.result.json!.foundations.W3!.D!).toBeCloseTo((10 * w * 15) / 8, 12);
   });
 });
 

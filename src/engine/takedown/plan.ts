@@ -536,19 +536,67 @@ function writeColumn(ctx: Context, m: Member, row: number): MemberPlace {
   return { member: m.index, row, rows: n, live };
 }
 
-/** A wall or foundation: what it receives, summed per channel (the reactions that close the path). */
+/**
+ * A wall's own weight: wX (plf or kN/m of wall) x the wall's length, as a point load row (the
+ * total, like a column's self weight over its height); null without wX cells or without a length.
+ */
+function wallWeightRow(ctx: Context, m: Member, length: string | null): LoadRow | null {
+  const cases = Object.keys(m.extra) as LoadCase[];
+  if (m.type !== "wall" || cases.length === 0 || length === null) return null;
+  const mags = new Map<number, string>();
+  for (const c of cases) mags.set(ch(ctx, c)!, toKips(ctx, `${inputRef(ctx, m.extra[c]!)}*(${length})`, false));
+  return { kind: "point", source: `own weight: ${cases.map((c) => `w${c}`).join(", ")} × wall length`, from: null, to: null, mags };
+}
+
+/**
+ * A wall's live load reduction, level by level like a column's (ASCE/SEI 7-22 Sec. 4.7): A_T is
+ * the accumulated tributary area, floors counted as for columns. Table 4.7-2 lists no bearing wall,
+ * so K_LL is never defaulted: a wall's live load is reduced only when its KLL cell holds a value
+ * (Sec. 4.7.3, K_LL from an approved analysis); a blank KLL cell means no reduction (factor 1).
+ * Written live: filling the KLL cell later reduces the wall's live load on the next recalculation.
+ */
+function writeWallReduction(ctx: Context, m: Member, row: number, live: readonly number[], above: readonly Delivery[]): void {
+  const { grid, layout, writer } = ctx;
+  const at = ch(ctx, "AT");
+  if (at === undefined) return;
+  const totalOf = (key: string): string => {
+    const i = ch(ctx, key);
+    return i !== undefined && live.includes(i) ? a1(row, layout.total[i]!) : "0";
+  };
+  const liveIndex = ch(ctx, "L");
+  const fromAbove = (i: number): string[] => above.map((d) => deliveredCell(ctx, d, i)).filter((c): c is string => c !== null);
+  // Floor live load arriving at this level: the total less what the walls above hand down.
+  const here = liveIndex !== undefined && live.includes(liveIndex) ? `IF(${[totalOf("L"), ...fromAbove(liveIndex)].join("-")}>0.000000001,1,0)` : "0";
+  const aboveFloors = above.map((d) => a1Absolute(ctx.places.get(d.from)!.row, layout.floors));
+  const floorsAbove = aboveFloors.length === 0 ? "" : aboveFloors.length === 1 ? `+${aboveFloors[0]}` : `+MAX(${aboveFloors.join(",")})`;
+  grid.set(row, layout.areaT, f(`MAX(0,${totalOf("AT")})`));
+  grid.set(row, layout.floors, f(here + floorsAbove));
+  const kll = a1(row, layout.kll);
+  const none = "no reduction (KLL blank)";
+  if (m.kll === null) {
+    grid.set(row, layout.kll, none);
+    grid.set(row, layout.llr, 1);
+  } else {
+    const cell = sheetCellRef(m.kll.cell);
+    grid.set(row, layout.kll, f(`IF(${cell}="","${none}",${inputRef(ctx, m.kll.cell)})`));
+    grid.set(row, layout.kllAt, f(`IF(${cell}="","",${kll}*${a1(row, layout.areaT)})`));
+    grid.set(row, layout.llr, f(`IF(${cell}="",1,${writer.llrFactor(kll, a1(row, layout.areaT), `MAX(1,${a1(row, layout.floors)})`, ctx.model.units)})`));
+  }
+  const llr = a1(row, layout.llr);
+  const lred = totalOf("Lred");
+  grid.set(row, layout.reducedLive, f(ctx.splitLive ? `${totalOf("L")}-${lred}+${llr}*${lred}` : `${llr}*${totalOf("L")}`));
+  grid.set(row, layout.factored, f(writer.combine(totalOf("D"), a1(row, layout.reducedLive), totalOf("Lr"), totalOf("S"), totalOf("R"))));
+}
+
+/**
+ * A wall or foundation: what it receives, summed per channel (the reactions that close the path);
+ * a wall also its own weight and, level by level like a column, its live load reduction and
+ * factored load.
+ */
 function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
   const { grid, layout } = ctx;
   const base = ctx.baseOf.get(m.index);
   writeIdentity(ctx, m, row);
-  const rows: LoadRow[] = (ctx.into.get(m.index) ?? []).map((d) => receivedRow(ctx, d, true));
-  for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
-  const n = Math.max(1, rows.length);
-  const live = writeLoadRows(ctx, rows, row, row, false, true);
-  for (const i of live) {
-    const b = layout.block[i]! + 1;
-    grid.set(row, layout.total[i]!, f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`));
-  }
   // The length the load is spread over: a wall on a beam, End at - Start at; else the Span cell (a
   // wall's or footing's length); a footing without one under a single wall, that wall's length.
   let length: string | null = null;
@@ -559,11 +607,23 @@ function writeTerminal(ctx: Context, m: Member, row: number): MemberPlace {
     const only = walls.length === 1 && (ctx.into.get(m.index) ?? []).length === 1 ? ctx.places.get(walls[0]!.from) : undefined;
     if (only !== undefined && ctx.wallLengths.has(only.member)) length = a1Absolute(only.row, layout.wallLength);
   }
+  const into = ctx.into.get(m.index) ?? [];
+  const rows: LoadRow[] = into.map((d) => receivedRow(ctx, d, true));
+  for (const p of ctx.loadsOn.get(m.index) ?? []) rows.push(extraLoadRow(ctx, p, row + rows.length, true));
+  const own = wallWeightRow(ctx, m, length === null ? null : a1Absolute(row, layout.wallLength));
+  if (own) rows.push(own);
+  const n = Math.max(1, rows.length);
+  const live = writeLoadRows(ctx, rows, row, row, false, true);
+  for (const i of live) {
+    const b = layout.block[i]! + 1;
+    grid.set(row, layout.total[i]!, f(`SUM(${a1(row, b)}:${a1(row + n - 1, b)})`));
+  }
   if (length !== null) {
     ctx.wallLengths.add(m.index);
     grid.set(row, layout.wallLength, f(length));
     for (const i of live) grid.set(row, layout.perLength[i]!, f(`${a1(row, layout.total[i]!)}/${a1(row, layout.wallLength)}`));
   }
+  if (m.type === "wall") writeWallReduction(ctx, m, row, live, into.filter((d) => d.end === "base" && ctx.model.members[d.from]!.type === "wall"));
   return { member: m.index, row, rows: n, live };
 }
 

@@ -37,6 +37,8 @@ function resultColumns(plan: SheetPlan, type: ReturnType<typeof typeOf>, live: r
     for (const c of Object.values(layout.governing)) cols.push(c, c + 1);
   } else {
     for (const i of live) cols.push(layout.total[i]!);
+    // A wall: its accumulated A_T, live load reduction and factored load (a blank KLL writes text there by design).
+    if (type === "wall" && hasAt) cols.push(layout.areaT, layout.floors, layout.llr, layout.reducedLive, layout.factored);
     if (type === "column") {
       for (const i of live) cols.push(layout.arriving[i]!);
       if (hasAt) cols.push(layout.areaT, layout.floors, layout.kll, layout.kllAt, layout.llr, layout.reducedLive);
@@ -46,9 +48,9 @@ function resultColumns(plan: SheetPlan, type: ReturnType<typeof typeOf>, live: r
   return cols;
 }
 
-function typeOf(model: TakedownModel, member: number): "flexural" | "column" | "terminal" {
+function typeOf(model: TakedownModel, member: number): "flexural" | "column" | "wall" | "terminal" {
   const t = model.members[member]!.type;
-  return isFlexural(t) ? "flexural" : isTerminal(t) ? "terminal" : "column";
+  return isFlexural(t) ? "flexural" : t === "wall" ? "wall" : isTerminal(t) ? "terminal" : "column";
 }
 
 /**

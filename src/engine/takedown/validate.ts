@@ -122,14 +122,30 @@ function checkWallBase(m: Member, byMark: ReadonlyMap<string, Member>, problems:
     problems.push(problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: Start support "${s.mark}" (what the wall bears on) is not a mark in the Members table.`, m.mark));
     return null;
   }
-  if (!target.valid) return null;
+  if (!target.valid) {
+    // Left out for a problem of its own: without this the wall's load would vanish with no word but the balance's.
+    problems.push(
+      problemAtCell(s.cell, m.markCell, "unknownSupport", `${m.mark}: stands on ${target.mark}, which is left out of the takedown (see the problem naming it); ${m.mark}'s load reaches no foundation and is missing from the load balance until ${target.mark} is fixed.`, m.mark),
+    );
+    return null;
+  }
   if (target.type === "column") {
     problems.push(
       problemAtCell(s.cell, m.markCell, "badValue", `${m.mark}: a wall cannot bear on column ${target.mark}; give the wall below, the beam, girder or joist under it (with Start at and End at), or its foundation.`, m.mark),
     );
     return null;
   }
-  if (!isFlexural(target.type)) return { from: m.index, end: "base", to: target.index, at: null, supportCell: s.cell };
+  if (!isFlexural(target.type)) {
+    // On a wall below or a foundation the load is spread along the length: a position has no meaning there.
+    for (const [n, name] of [[s.at, "Start at"], [m.end.at, "End at"]] as const) {
+      if (n !== null && n.value !== null) {
+        problems.push(
+          problemAtCell(n.cell, m.markCell, "badValue", `${m.mark}: ${name} ${formatNumber(n.value)} is not used: ${m.mark} bears on ${target.mark} (a ${target.type}), which takes its total spread along its length; Start at and End at place a wall on a beam, girder or joist. Leave ${name} blank.`, m.mark),
+        );
+      }
+    }
+    return { from: m.index, end: "base", to: target.index, at: null, supportCell: s.cell };
+  }
   const a = s.at;
   const b = m.end.at;
   for (const [n, name] of [[a, "Start at"], [b, "End at"]] as const) {
@@ -150,6 +166,25 @@ function checkWallBase(m: Member, byMark: ReadonlyMap<string, Member>, problems:
     return null;
   }
   return { from: m.index, end: "base", to: target.index, at: a!, until: b!, supportCell: s.cell };
+}
+
+/**
+ * Cells of a wall row that the takedown would otherwise pass over in silence: an End support (a
+ * wall bears on one thing, its Start support), and an own weight wX with no length to multiply
+ * (no Span and not standing on a beam between Start at and End at).
+ */
+function wallInputsUnused(m: Member, base: Delivery | null, problems: Problem[]): void {
+  if (m.end.mark !== "") {
+    problems.push(
+      problemAtCell(m.end.cell, m.markCell, "badValue", `${m.mark}: End support "${m.end.mark}" is not used: a wall bears on one member, its Start support (the wall below, the beam under it, or its foundation). Leave End support blank.`, m.mark),
+    );
+  }
+  const onBeam = base?.until !== undefined;
+  const hasLength = onBeam || (m.span !== null && m.span.value !== null && m.span.value > 0);
+  if (hasLength) return;
+  for (const c of Object.keys(m.extra) as (keyof Member["extra"])[]) {
+    problems.push(problemAtCell(m.extra[c]!, m.markCell, "badSpan", `${m.mark}: w${c} (own weight per unit length of wall) needs the wall's length: give it in Span, or stand the wall on a beam with Start at and End at.`, m.mark));
+  }
 }
 
 /**
@@ -216,7 +251,14 @@ function bearingHolder(m: Member, b: Bearing, byMark: ReadonlyMap<string, Member
     return { ok: false, blocking: true };
   }
   if (!target.valid || excluded.has(target.index)) return { ok: false, blocking: true };
-  if (!isFlexural(target.type)) return { ok: true, target };
+  if (!isFlexural(target.type)) {
+    // A column takes the reaction at its top; a wall or footing spreads it along its length: a position along them has no effect.
+    if (s.at !== null && s.at.value !== null) {
+      const how = target.type === "column" ? "takes it at its top" : "spreads what it carries evenly along its length";
+      problems.push(problemAtCell(s.at.cell, b.markCell, "badValue", `${label}: Support at ${formatNumber(s.at.value)} is not used: ${target.mark} is a ${target.type} and ${how}; leave Support at blank (it places a support along a beam, girder or joist).`, m.mark));
+    }
+    return { ok: true, target };
+  }
   if (s.at === null || s.at.value === null) {
     problems.push(problemAtCell(s.at?.cell ?? s.cell, b.markCell, "missingPosition", `${label}: Support at is blank; give the position along ${target.mark} (a ${target.type}) where ${m.mark} bears.`, m.mark));
     return { ok: false, blocking: true };
@@ -319,6 +361,12 @@ export function checkPath(model: TakedownModel): CheckedPath {
     if (m.valid && m.type === "wall") {
       const d = checkWallBase(m, usable, problems);
       if (d) deliveries.push(d);
+      wallInputsUnused(m, d, problems);
+    }
+    if (m.valid && m.type === "foundation") {
+      for (const c of Object.keys(m.extra) as (keyof Member["extra"])[]) {
+        problems.push(problemAtCell(m.extra[c]!, m.markCell, "badValue", `${m.mark}: w${c} is not used: a foundation's own weight bears on the soil and is not part of the takedown; leave w${c} blank (a load on the footing goes in the Loads table as a point load).`, m.mark));
+      }
     }
     if (!m.valid || isTerminal(m.type) || excluded.has(m.index)) continue;
     const ends: [DeliveryEnd, SupportInput][] = isFlexural(m.type) ? [["start", m.start], ["end", m.end]] : [["base", m.start]];

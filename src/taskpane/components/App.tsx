@@ -76,7 +76,7 @@ interface Progress {
   readonly message: string;
 }
 
-const NO_CHOICE: TableChoice = { zones: "", members: "", loads: "" };
+const NO_CHOICE: TableChoice = { zones: "", members: "", loads: "", bearings: "" };
 
 /** The task pane. */
 export function App({ session, connected }: AppProps): React.JSX.Element {
@@ -130,8 +130,8 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     // The column step of each chosen table, read as the build reads it.
     if (scan === null) return;
     let current = true;
-    const roles = ROLES.filter((r) => choice[r] !== "");
-    Promise.all(roles.map(async (r) => [r, await session.columnReport(r, choice[r], mapping, headerRows?.[r])] as const))
+    const roles = ROLES.filter((r) => (choice[r] ?? "") !== "");
+    Promise.all(roles.map(async (r) => [r, await session.columnReport(r, choice[r] ?? "", mapping, headerRows?.[r])] as const))
       .then((pairs) => {
         if (current) setReports(Object.fromEntries(pairs));
       })

@@ -3,7 +3,7 @@ import * as React from "react";
 import { Accordion, AccordionHeader, AccordionItem, AccordionPanel, Field, Input, Radio, RadioGroup, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
 import type { TableInfo } from "../../workbook/port";
 import type { ColumnMapping, HeaderRows, UnitSystem } from "../../workbook/takedown-api";
-import { blockingColumns, ROLES, ROLE_TITLES, type HeaderCell, type TableReport, type TableRole } from "../schema";
+import { blockingColumns, OPTIONAL_ROLES, ROLES, ROLE_TITLES, type HeaderCell, type TableReport, type TableRole } from "../schema";
 import type { TableChoice } from "../session";
 
 const useStyles = makeStyles({
@@ -25,28 +25,29 @@ export interface TablePickerProps {
   readonly onChange: (role: TableRole, name: string) => void;
 }
 
-/** One list per role; the loads table is optional. */
+/** One list per role; the loads and bearings tables are optional. */
 export function TablePicker(props: TablePickerProps): React.JSX.Element {
   const styles = useStyles();
   return (
     <div className={styles.stack}>
       {ROLES.map((role) => {
-        const found = props.detected.includes(role) && props.choice[role] !== "";
+        const found = props.detected.includes(role) && (props.choice[role] ?? "") !== "";
+        const optional = OPTIONAL_ROLES.has(role);
         return (
           <Field
             key={role}
-            label={ROLE_TITLES[role] + (role === "loads" ? " (optional)" : "")}
+            label={ROLE_TITLES[role] + (optional ? " (optional)" : "")}
             hint={found ? "Found by its column headers." : undefined}
-            validationState={role !== "loads" && props.choice[role] === "" ? "warning" : "none"}
-            validationMessage={role !== "loads" && props.choice[role] === "" ? "No table with the expected headers; pick one." : undefined}
+            validationState={!optional && (props.choice[role] ?? "") === "" ? "warning" : "none"}
+            validationMessage={!optional && (props.choice[role] ?? "") === "" ? "No table with the expected headers; pick one." : undefined}
           >
             <Select
               data-role={role}
-              value={props.choice[role]}
+              value={props.choice[role] ?? ""}
               disabled={props.disabled}
               onChange={(_, data) => props.onChange(role, data.value)}
             >
-              <option value="">{role === "loads" ? "None" : "Pick a table"}</option>
+              <option value="">{optional ? "None" : "Pick a table"}</option>
               {props.tables.map((t) => (
                 <option key={t.name} value={t.name}>
                   {tableLabel(t)}
@@ -85,7 +86,7 @@ function cellLabel(c: HeaderCell): string {
  */
 export function ColumnMatcher(props: ColumnMatcherProps): React.JSX.Element {
   const styles = useStyles();
-  const chosen = ROLES.filter((r) => props.choice[r] !== "");
+  const chosen = ROLES.filter((r) => (props.choice[r] ?? "") !== "");
   const openByDefault = chosen.filter((role) => {
     const r = props.reports[role];
     return r !== undefined && blockingColumns(r).length > 0;
