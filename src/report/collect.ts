@@ -12,7 +12,7 @@ import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-load
 import { numberOf } from "../engine/takedown/cells";
 import { isFlexural } from "../engine/takedown/model";
 import { a1 } from "../engine/a1";
-import { governingCombination } from "./factored";
+import { memberGoverning } from "../engine/takedown/member-envelope";
 import type { Problem } from "../workbook/takedown-api";
 import { cellAddress, sheetRef } from "../workbook/a1";
 import type { CellValue, RangeData, WorkbookPort } from "../workbook/port";
@@ -166,8 +166,12 @@ export function reportGaps(plan: SheetPlan, model: TakedownModel, members: Reado
     let gap = firstNonFinite(printed, mark);
     // Factoring can only overflow numbers already near the largest double: skip the exact solution otherwise.
     if (gap === null && isFlexural(m.type) && largest(printed) > 1e300) {
-      const g = governingCombination(m);
-      if (g !== null) gap = firstNonFinite({ magnitudes: g.magnitudes, reactions: g.reactions, shearMax: g.shearMax, momentMax: g.momentMax }, `${mark} governing combination`);
+      const g = memberGoverning(m);
+      if (g !== null && g.ok) {
+        const e = g.value.envelope;
+        const values = { momentMax: e.momentMax.value, momentMin: e.momentMin.value, shearMax: e.shearMax.value, reactionMax: e.reactionMax.map((v) => v.value), reactionMin: e.reactionMin.map((v) => v.value) };
+        gap = firstNonFinite(values, `${mark} governing values`);
+      }
     }
     if (gap === null) continue;
     out.push({
