@@ -12,7 +12,7 @@ import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-load
 import { numberOf } from "../engine/takedown/cells";
 import { isFlexural } from "../engine/takedown/model";
 import { a1 } from "../engine/a1";
-import { memberGoverning } from "../engine/takedown/member-envelope";
+import { memberGoverningCached as memberGoverning } from "./factored";
 import type { Problem } from "../workbook/takedown-api";
 import { cellAddress, sheetRef } from "../workbook/a1";
 import type { CellValue, RangeData, WorkbookPort } from "../workbook/port";

@@ -59,7 +59,7 @@ export function memberDrawing(member: MemberLoads, units: UnitSystem, caseLabel:
 /**
  * The member sheet input of a governing case: its factored pieces (src/engine/takedown/
  * member-envelope.ts), each labelled with where its load comes from and, where the pattern has a
- * live case off, "L off".
+ * live case off, that first ("L off: BALCONY row 3").
  * @param member - a beam, girder or joist
  * @param units - the takedown's unit system
  * @param caption - the governing case ("M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on span 1 (factored)")
@@ -69,7 +69,8 @@ export function governingDrawing(member: MemberLoads, units: UnitSystem, caption
   const lines: DrawnLineLoad[] = [];
   const points: DrawnPointLoad[] = [];
   for (const p of pieces) {
-    const label = p.off.length > 0 ? `${originLabel(p.load)}, ${p.off.join(", ")} off` : originLabel(p.load);
+    // The pattern first, so that a shortened label still says which live load is off.
+    const label = p.off.length > 0 ? `${p.off.join(", ")} off: ${originLabel(p.load)}` : originLabel(p.load);
     if (p.load.kind === "line") lines.push({ start: p.start, end: p.end, w1: p.value, w2: p.value, label });
     else points.push({ x: p.start, p: p.value, from: label });
   }

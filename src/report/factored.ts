@@ -8,6 +8,20 @@
 import type { BeamLoad } from "../engine/beam/types";
 import { combinationsOf, type Combination, type CombinationTerm } from "../engine/loads/combinations";
 import type { MemberLoads } from "../engine/takedown/member-loads";
+import { memberGoverning, type MemberGoverning } from "../engine/takedown/member-envelope";
+import type { Result } from "../engine/errors";
+
+const governed = new WeakMap<MemberLoads, Result<MemberGoverning> | null>();
+
+/**
+ * A member's governing values (src/engine/takedown/member-envelope.ts), computed once per member
+ * for the whole report (its section, the reaction summary and the check for numbers it cannot print).
+ * @param member - a member's loads from the computed sheet
+ */
+export function memberGoverningCached(member: MemberLoads): Result<MemberGoverning> | null {
+  if (!governed.has(member)) governed.set(member, memberGoverning(member));
+  return governed.get(member)!;
+}
 
 /** The gravity combinations of ASCE/SEI 7-22 Sec. 2.3.1 (LRFD, without the 0.5L option): no W or E term. */
 export function gravityCombinations(): Combination[] {

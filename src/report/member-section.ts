@@ -18,8 +18,8 @@ import { renderMemberSheet } from "../drawings/sheet";
 import type { TakedownRecord } from "./collect";
 import { caseMagnitudes, governingDrawing, loadPathTree, memberDrawing, supportLabel } from "./drawings";
 import type { CombinationTerm } from "../engine/loads/combinations";
-import { governingCaption, governingOf as governingValueOf, governingPieces, labelOnMember, memberGoverning, quantitiesOf, type GoverningQuantity, type MemberGoverning } from "../engine/takedown/member-envelope";
-import { beamLoadsOf, gravityCombinations, shortLabel } from "./factored";
+import { governingCaption, governingOf as governingValueOf, governingPieces, labelOnMember, quantitiesOf, type GoverningQuantity, type MemberGoverning } from "../engine/takedown/member-envelope";
+import { beamLoadsOf, gravityCombinations, memberGoverningCached, shortLabel } from "./factored";
 import { DECIMALS, el, fixed, join, length, numCell, raw, type Child, type Html } from "./html";
 import { SOURCES } from "./text";
 
@@ -256,7 +256,7 @@ function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number):
   const cases = casesOn(record, m);
   // Cases that put no load on the member are left out of its tables (their results are all 0).
   const shown = cases.length > 0 ? cases : record.model.cases.slice(0, 1);
-  const governed = memberGoverning(m);
+  const governed = memberGoverningCached(m);
   const g = governed !== null && governed.ok ? governed.value : null;
   const supports = m.supports.map((s) => `${s.end} at ${length(s.x ?? Number.NaN)} ${u.length} on ${supportLabel(s, u.length)}`).join("; ");
   const facts = el("p", { class: "facts" }, `Length ${m.length === null ? "?" : length(m.length)} ${u.length}; pinned supports: ${supports}.`);

@@ -1,8 +1,9 @@
 /**
  * From a member's loads as the takedown sheet computed them (src/engine/takedown/member-loads.ts)
- * to the drawing's input (src/drawings): one load case, or a load combination whose
- * factors multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
- * src/engine/loads/combinations.ts). Pure: no DOM, no workbook.
+ * to the drawing's input (src/drawings): one load case, a load combination whose factors
+ * multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
+ * src/engine/loads/combinations.ts), or the factored case that governs one quantity (its
+ * combination and live load pattern). Pure: no DOM, no workbook.
  */
 import { combinationsOf } from "../engine/loads/combinations";
 import { isFlexural } from "../engine/takedown/model";
@@ -11,7 +12,8 @@ import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
 import { solveDrawing } from "../drawings/model";
 import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "../drawings/types";
-import { formatLength } from "../drawings/format";
+import { formatLength, formatQuantity } from "../drawings/format";
+import { governingCaption, governingOf, governingPieces, labelOnMember, memberGoverning, quantityName, type GoverningQuantity } from "../engine/takedown/member-envelope";
 
 /** A load case or a combination the pane can draw. */
 export interface CaseChoice {
@@ -213,4 +215,86 @@ export function governingChoice(member: MemberLoads, combinations: readonly Case
     }
   }
   return best;
+}
+
+/**
+ * What the diagrams show: a load case unfactored (live load as computed, not reduced), or the
+ * factored case that governs one quantity of a beam (its combination, live load pattern and
+ * reduced live load; src/engine/takedown/member-envelope.ts).
+ */
+export type DiagramPick = { readonly kind: "case"; readonly loadCase: LoadCase } | { readonly kind: "governing"; readonly quantity: GoverningQuantity };
+
+/** Key of a pick in the selector: the case ("D") or "q:momentMax", "q:reactionMin:1". */
+export function pickKey(p: DiagramPick): string {
+  if (p.kind === "case") return p.loadCase;
+  const q = p.quantity;
+  return q.kind === "reactionMax" || q.kind === "reactionMin" ? `q:${q.kind}:${q.support}` : `q:${q.kind}`;
+}
+
+/** The pick of a selector key (null for a key that names nothing). */
+export function pickOf(key: string, cases: readonly LoadCase[]): DiagramPick | null {
+  if ((cases as readonly string[]).includes(key)) return { kind: "case", loadCase: key as LoadCase };
+  const m = /^q:(momentMax|momentMin|shearMax)$/.exec(key);
+  if (m) return { kind: "governing", quantity: { kind: m[1] as "momentMax" | "momentMin" | "shearMax" } };
+  const r = /^q:(reactionMax|reactionMin):(\d+)$/.exec(key);
+  if (r) return { kind: "governing", quantity: { kind: r[1] as "reactionMax" | "reactionMin", support: Number(r[2]) } };
+  return null;
+}
+
+/** A governing case drawn: the drawing, its caption and the governing value. */
+export interface GoverningShown {
+  readonly drawing: MemberDrawing;
+  /** "M+ 5.15 kN·m at 1.89 m: 2.3.1 (2) 1.2D + 1.6L; L on span 1. Factored loads and results (LRFD)." */
+  readonly caption: string;
+  readonly value: number;
+}
+
+/**
+ * The drawing of the factored case that governs a quantity of a beam, girder or joist: its loads
+ * times the combination's factors, the reducible live load times L/Lo, a live case only on the
+ * segments where the pattern has it on (a load whose live part is off there says so, "L off").
+ * @param member - the member's loads from the computed takedown sheet
+ * @param quantity - M+, M-, |V| or a reaction's max or min
+ * @param units - the takedown's unit system
+ * @returns the drawing and caption; null for a member that does not bend; an error message when the engine refuses the member
+ */
+export function governingDrawingOf(member: MemberLoads, quantity: GoverningQuantity, units: UnitSystem): GoverningShown | string | null {
+  const g = memberGoverning(member);
+  if (g === null) return null;
+  if (!g.ok) return g.error.message;
+  const value = governingOf(g.value.envelope, quantity);
+  if (value === undefined) return `${member.mark} has no support ${"support" in quantity ? quantity.support + 1 : ""}.`;
+  const u = drawingUnitsOf(units);
+  const combination = g.value.combinations[value.combinationIndex]!;
+  const factors = combination.factors as Readonly<Partial<Record<ChannelKey, number>>>;
+  const lines: DrawnLineLoad[] = [];
+  const points: DrawnPointLoad[] = [];
+  for (const p of governingPieces(member, g.value, value)) {
+    const origin = originText(p.load, factors);
+    // The pattern first, so that a shortened label still says which live load is off.
+    const label = p.off.length > 0 ? `${p.off.join(", ")} off${origin !== "" ? `: ${origin}` : ""}` : origin;
+    if (p.load.kind === "line") lines.push({ start: p.start, end: p.end, w1: p.value, w2: p.value, label });
+    else points.push({ x: p.start, p: p.value, from: label });
+  }
+  const moment = quantity.kind === "momentMax" || quantity.kind === "momentMin";
+  const llr = member.liveReduction?.llrFactor;
+  const reduced = g.value.present.includes("L") && member.reducibleLive !== null && llr !== undefined && Number.isFinite(llr) && llr < 1 && (factors.L ?? 0) !== 0;
+  const at = quantity.kind === "reactionMax" || quantity.kind === "reactionMin" ? "" : ` at ${fmt(value.x)} ${u.length}`;
+  const pattern = value.pattern === "no pattern" ? "" : `; ${value.pattern}`;
+  const caption =
+    `${quantityName(quantity)} ${formatQuantity(value.value, moment ? "moment" : "force")} ${moment ? u.moment : u.force}${at}: ` +
+    `${labelOnMember(value.combination, g.value.present)}${pattern}. Factored loads and results (LRFD)${reduced ? `, L \u00D7 ${llr.toFixed(2)}` : ""}.`;
+  const drawing: MemberDrawing = {
+    mark: member.mark,
+    memberType: member.type,
+    level: member.level,
+    span: member.length ?? Number.NaN,
+    units: u,
+    supports: member.supports.map((s) => ({ x: s.x ?? 0, type: "pin" as const, label: supportLabel(s, u) })),
+    lines,
+    points,
+    moments: [],
+    caseLabel: `${governingCaption(g.value, quantity)}${reduced ? `, L \u00D7 ${llr.toFixed(2)}` : ""}`,
+  };
+  return { drawing, caption, value: value.value };
 }
