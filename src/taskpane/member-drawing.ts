@@ -5,12 +5,10 @@
  * src/engine/loads/combinations.ts), or the factored case that governs one quantity (its
  * combination and live load pattern). Pure: no DOM, no workbook.
  */
-import { combinationsOf } from "../engine/loads/combinations";
 import { isFlexural } from "../engine/takedown/model";
 import type { ChannelKey } from "../engine/takedown/layout";
 import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
-import { solveDrawing } from "../drawings/model";
 import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "../drawings/types";
 import { formatLength, formatQuantity } from "../drawings/format";
 import { governingCaption, governingOf, governingPieces, labelOnMember, memberGoverning, quantityName, type GoverningQuantity } from "../engine/takedown/member-envelope";
@@ -37,30 +35,6 @@ export function drawingUnitsOf(units: UnitSystem): DrawingUnits {
 /** The takedown's load cases as choices, in the takedown's order. */
 export function caseChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
   return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 }, combination: false, terms: [{ load: c, text: c }] }));
-}
-
-/**
- * The gravity combinations of ASCE/SEI 7-22 Sec. 2.3.1 (strength design, no wind or seismic
- * term) for the cases a takedown carries: terms of absent cases dropped, duplicates merged,
- * single-case rows kept only when they carry a factor other than 1 (1.4D).
- * @param cases - load cases of the takedown
- */
-export function combinationChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
-  const present = new Set<string>(cases);
-  const seen = new Set<string>();
-  const out: CaseChoice[] = [];
-  for (const c of combinationsOf({ method: "LRFD", halfLive: false })) {
-    if (c.terms.some((t) => t.load === "W" || t.load === "E")) continue;
-    const terms = c.terms.filter((t) => present.has(t.load) && t.factor !== 0);
-    if (terms.length === 0 || (terms.length === 1 && terms[0]!.factor === 1)) continue;
-    const label = terms.map((t) => t.text).join(" + ");
-    if (seen.has(label)) continue;
-    seen.add(label);
-    const factors: Partial<Record<LoadCase, number>> = {};
-    for (const t of terms) factors[t.load as LoadCase] = (factors[t.load as LoadCase] ?? 0) + t.factor;
-    out.push({ key: `combo:${label}`, label, factors, combination: true, terms: terms.map((t) => ({ load: t.load as LoadCase, text: t.text })) });
-  }
-  return out;
 }
 
 /**
@@ -96,13 +70,6 @@ export function combine(magnitudes: Readonly<Partial<Record<ChannelKey, number>>
   return total;
 }
 
-/** A member's reaction at support k under a choice, from the sheet's per-case reactions. */
-export function combinedReaction(member: MemberLoads, choice: CaseChoice, k: number): number {
-  const per: Partial<Record<ChannelKey, number>> = {};
-  for (const [key, values] of Object.entries(member.reactions) as [ChannelKey, readonly number[]][]) per[key] = values[k] ?? 0;
-  return combine(per, channelFactors(member, choice));
-}
-
 /** A length as the report prints it (the shared formatter): at most two decimals, no exponent. */
 const fmt = formatLength;
 
@@ -130,20 +97,6 @@ export function originText(load: AppliedLoad, factors: Readonly<Partial<Record<C
 
 function supportLabel(s: MemberLoads["supports"][number], units: DrawingUnits): string {
   return s.at !== null && Number.isFinite(s.at) ? `${s.mark} @ ${fmt(s.at)} ${units.length}` : s.mark;
-}
-
-/**
- * A combination as it reads on one member: terms of cases that put no load on it are left out
- * of the label ("1.2D + 1.6L + 0.5Lr" on a floor beam reads "1.2D + 1.6L"); the factors, and so
- * every number, are unchanged.
- * @param choice - a case or combination
- * @param member - the member's loads
- */
-export function choiceOnMember(choice: CaseChoice, member: MemberLoads): CaseChoice {
-  if (!choice.combination) return choice;
-  const carries = (c: LoadCase): boolean => (member.reactions[c] ?? []).some((v) => v !== 0);
-  const kept = choice.terms.filter((t) => carries(t.load));
-  return kept.length === 0 || kept.length === choice.terms.length ? choice : { ...choice, label: kept.map((t) => t.text).join(" + ") };
 }
 
 /** The label of a choice on one member: the combination text, and the live load reduction applied. */
@@ -188,34 +141,6 @@ export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: 
   };
 }
 
-/** Largest bending moment magnitude of a drawing, by the exact beam engine (NaN when it cannot be solved). */
-export function largestMoment(drawing: MemberDrawing): number {
-  const solved = solveDrawing(drawing);
-  if (!solved.ok) return Number.NaN;
-  return Math.max(solved.value.maxSagging().value, -solved.value.maxHogging().value);
-}
-
-/**
- * The governing combination of a member: for a beam, the one with the largest bending moment
- * (exact beam engine, every combination solved); for a column, wall or foundation the one with
- * the largest total load. Ties go to the first in the standard's order.
- * @param member - the member's loads
- * @param combinations - from {@link combinationChoicesOf}
- * @param units - the takedown's unit system
- */
-export function governingChoice(member: MemberLoads, combinations: readonly CaseChoice[], units: UnitSystem): CaseChoice | null {
-  let best: CaseChoice | null = null;
-  let bestValue = Number.NEGATIVE_INFINITY;
-  for (const c of combinations) {
-    const drawing = memberDrawingOf(member, c, units);
-    const value = drawing ? largestMoment(drawing) : combinedReaction(member, c, 0) + combinedReaction(member, c, 1);
-    if (Number.isFinite(value) && value > bestValue) {
-      best = c;
-      bestValue = value;
-    }
-  }
-  return best;
-}
 
 /**
  * What the diagrams show: a load case unfactored (live load as computed, not reduced), or the
