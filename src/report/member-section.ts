@@ -229,9 +229,9 @@ function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverni
       el("th", { scope: "row" }, governingName(q, m, u.length)),
       numCell(v.value, moment ? "moment" : "force", { "data-case": "governing" }),
       el("td", { class: "unit" }, moment ? u.moment : u.force),
-      q.kind === "reactionMax" || q.kind === "reactionMin" ? el("td", {}, "") : numCell(v.x, "length", { "data-field": "x" }),
+      q.kind === "reactionMax" || q.kind === "reactionMin" || none ? el("td", {}, "") : numCell(v.x, "length", { "data-field": "x" }),
       el("td", { class: "combo" }, none ? "no hogging under any combination" : labelOnMember(v.combination, g.present)),
-      el("td", { class: "pattern" }, none ? "" : v.pattern),
+      el("td", { class: "pattern" }, none ? "" : v.pattern === "no pattern" ? "none (no L or Lr in this combination)" : v.pattern),
       el("td", { class: "note" }, uplift ? "uplift: hold down" : ""),
     );
   });

@@ -230,12 +230,14 @@ export function quantitiesOf(supports: number): GoverningQuantity[] {
 }
 
 /**
- * The caption of a governing case: "M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on span 1 (factored)".
+ * The caption of a governing case: "M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on span 1 (factored)"
+ * (no pattern named when the combination has no live case on the member: "R1 min governs: 2.3.1 (5) 0.9D (factored)").
  * @param g - the member's governing values
  * @param q - the quantity
  */
 export function governingCaption(g: MemberGoverning, q: GoverningQuantity): string {
   const v = governingOf(g.envelope, q);
   if (v === undefined) return quantityName(q);
-  return `${quantityName(q)} governs: ${labelOnMember(v.combination, g.present)}; ${v.pattern} (factored)`;
+  const pattern = v.pattern === "no pattern" ? "" : `; ${v.pattern}`;
+  return `${quantityName(q)} governs: ${labelOnMember(v.combination, g.present)}${pattern} (factored)`;
 }

@@ -72,6 +72,7 @@ describe("governing values of a takedown member", () => {
     // Least reaction: 0.9D (combination 5 without wind) = 0.9 x 1 x 20 / 2 = 9 kip.
     close(e.reactionMin[0]!.value, 9);
     expect(labelOnMember(e.reactionMin[0]!.combination, ["D", "L"])).toBe("2.3.1 (5) 0.9D");
+    expect(governingCaption(governing(m), { kind: "reactionMin", support: 0 })).toBe("R1 min governs: 2.3.1 (5) 0.9D (factored)");
   });
 
   it("with all live load reducible the whole L is reduced", () => {
