@@ -1,9 +1,8 @@
 /**
  * From a member's loads as the takedown sheet computed them (src/engine/takedown/member-loads.ts)
- * to the drawing's input (src/drawings): one load case, a load combination whose factors
- * multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
- * src/engine/loads/combinations.ts), or the factored case that governs one quantity (its
- * combination and live load pattern). Pure: no DOM, no workbook.
+ * to the drawing's input (src/drawings): one load case unfactored, or the factored case that
+ * governs one quantity (its ASCE/SEI 7-22 Sec. 2.3.1 combination, its live load pattern per
+ * Sec. 4.3.3 and the member's live load reduction). Pure: no DOM, no workbook.
  */
 import { isFlexural } from "../engine/takedown/model";
 import type { ChannelKey } from "../engine/takedown/layout";
@@ -13,18 +12,14 @@ import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPo
 import { formatLength, formatQuantity } from "../drawings/format";
 import { governingCaption, governingOf, governingPieces, labelOnMember, memberGoverning, quantityName, type GoverningQuantity } from "../engine/takedown/member-envelope";
 
-/** A load case or a combination the pane can draw. */
+/** A load case the pane draws unfactored (factored cases are drawn by {@link governingDrawingOf}). */
 export interface CaseChoice {
-  /** Stable key for the selector: the case ("D") or "combo:" + the combination text. */
+  /** Stable key for the selector: the case ("D"). */
   readonly key: string;
-  /** What the drawing's title shows: "D" or "1.2D + 1.6L". */
+  /** What the drawing's title shows: "D". */
   readonly label: string;
-  /** Factor of each load case (a single case has factor 1 on itself). */
+  /** Factor 1 on the case itself. */
   readonly factors: Readonly<Partial<Record<LoadCase, number>>>;
-  /** True for combinations (live load reduction applies to them, not to a single case). */
-  readonly combination: boolean;
-  /** The combination's terms as the standard writes them ("1.6L"); one term for a single case. */
-  readonly terms: readonly { readonly load: LoadCase; readonly text: string }[];
 }
 
 /** Drawing units of a takedown's unit system. */
@@ -34,30 +29,7 @@ export function drawingUnitsOf(units: UnitSystem): DrawingUnits {
 
 /** The takedown's load cases as choices, in the takedown's order. */
 export function caseChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
-  return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 }, combination: false, terms: [{ load: c, text: c }] }));
-}
-
-/**
- * The factor a combination puts on each channel of a member, with the member's live load
- * reduction (ASCE/SEI 7-22 Sec. 4.7) on the reducible part of L for combinations:
- * L_effective = L - Lred + factor x Lred when the takedown carries Lred apart, factor x L when all
- * live load is reducible.
- */
-function channelFactors(member: MemberLoads, choice: CaseChoice): Partial<Record<ChannelKey, number>> {
-  const out: Partial<Record<ChannelKey, number>> = { ...choice.factors };
-  const fL = choice.factors.L ?? 0;
-  const llr = member.liveReduction?.llrFactor;
-  if (!choice.combination || fL === 0 || llr === undefined || !Number.isFinite(llr) || llr >= 1) return out;
-  if (member.reducibleLive === "L") out.L = fL * llr;
-  else if (member.reducibleLive === "Lred") out.Lred = fL * (llr - 1);
-  return out;
-}
-
-/** The live load reduction factor applied to a combination's L on this member (1 when none). */
-export function appliedLiveReduction(member: MemberLoads, choice: CaseChoice): number {
-  const llr = member.liveReduction?.llrFactor;
-  if (!choice.combination || !(choice.factors.L ?? 0) || llr === undefined || !Number.isFinite(llr) || member.reducibleLive === null) return 1;
-  return Math.min(1, llr);
+  return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 } }));
 }
 
 /** Sum of factor x magnitude over the channels (NaN when a needed channel is not a number). */
@@ -99,25 +71,19 @@ function supportLabel(s: MemberLoads["supports"][number], units: DrawingUnits): 
   return s.at !== null && Number.isFinite(s.at) ? `${s.mark} @ ${fmt(s.at)} ${units.length}` : s.mark;
 }
 
-/** The label of a choice on one member: the combination text, and the live load reduction applied. */
-export function choiceLabel(member: MemberLoads, choice: CaseChoice): string {
-  const r = appliedLiveReduction(member, choice);
-  return r < 1 ? `${choice.label}, L \u00D7 ${r.toFixed(2)}` : choice.label;
-}
-
 /**
- * The drawing of a beam, girder or joist under a case or combination: its supports (labelled
+ * The drawing of a beam, girder or joist under one load case, unfactored: its supports (labelled
  * with what holds it up), its line loads over their intervals and the reactions and point loads
- * it receives, each magnitude the sheet's per-case value times the choice's factor.
+ * it receives, each magnitude the sheet's value of that case (live load not reduced).
  * @param member - the member's loads from the computed takedown sheet
- * @param choice - a case or combination
+ * @param choice - a load case
  * @param units - the takedown's unit system
  * @returns the drawing, or null for a member that does not bend (column, wall, foundation) or has no length
  */
 export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: UnitSystem): MemberDrawing | null {
   if (!isFlexural(member.type) || member.length === null || !(member.length > 0)) return null;
   const u = drawingUnitsOf(units);
-  const factors = channelFactors(member, choice);
+  const factors: Readonly<Partial<Record<ChannelKey, number>>> = choice.factors;
   const supports: DrawnSupport[] = member.supports.map((s) => ({ x: s.x ?? 0, type: "pin" as const, label: supportLabel(s, u) }));
   const lines: DrawnLineLoad[] = [];
   const points: DrawnPointLoad[] = [];
@@ -137,7 +103,7 @@ export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: 
     lines,
     points,
     moments: [],
-    caseLabel: choiceLabel(member, choice),
+    caseLabel: choice.label,
   };
 }
 
