@@ -164,10 +164,14 @@ export function reportGaps(plan: SheetPlan, model: TakedownModel, members: Reado
       liveReduction: m.liveReduction,
     };
     let gap = firstNonFinite(printed, mark);
-    // Factoring can only overflow numbers already near the largest double: skip the exact solution otherwise.
-    if (gap === null && isFlexural(m.type) && largest(printed) > 1e300) {
+    if (gap === null && isFlexural(m.type)) {
       const g = memberGoverning(m);
-      if (g !== null && g.ok) {
+      if (g !== null && !g.ok) {
+        out.push({ code: "errorResult", message: `${mark}: the report cannot give its governing values: ${g.error.message}`, sheet: plan.sheet, cell: a1(place.row, 0), mark });
+        continue;
+      }
+      // Factoring can only overflow numbers already near the largest double.
+      if (g !== null && largest(printed) > 1e300) {
         const e = g.value.envelope;
         const values = { momentMax: e.momentMax.value, momentMin: e.momentMin.value, shearMax: e.shearMax.value, reactionMax: e.reactionMax.map((v) => v.value), reactionMin: e.reactionMin.map((v) => v.value) };
         gap = firstNonFinite(values, `${mark} governing values`);
