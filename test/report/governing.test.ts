@@ -126,6 +126,14 @@ describe.skipIf(missing !== null)("governing values in the report", () => {
     const values = [...fig![1]!.matchAll(extreme)].map((x) => Number(x[1]));
     const expected = row(part, "governing-moment-max").value;
     expect(values.some((v) => Math.abs(v - expected) <= 1e-9 * expected), `${values.join(", ")} vs ${expected}`).toBe(true);
+    // The drawn reactions are those of the same statics: R1 as above, R2 = total load - R1.
+    const wb = 1.2 * wD + 1.6 * wLback;
+    const wo = 1.2 * wD;
+    const r1 = (wb * l) / 2 - (wo * a * a) / (2 * l);
+    const reactions = [...fig![1]!.matchAll(/data-role="reaction" data-index="(\d)" data-x="[^"]*" data-value="([^"]+)"/g)].map((x) => Number(x[2]));
+    expect(reactions).toHaveLength(2);
+    close(reactions[0]!, r1, "J01 drawn R1");
+    close(reactions[1]!, wb * l + wo * a - r1, "J01 drawn R2");
     // The balcony piece carries its dead load only, and says its live load is off.
     // BALCONY D alone: 1.2 x 0.6 kPa x 0.6 m = 0.432 kN/m (the joist's wD is a load of its own).
     expect(fig![1]).toContain(">L off: BALCONY …: 0.432 kN/m<");
