@@ -221,8 +221,9 @@ function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverni
   const rows = quantitiesOf(m.supports.length).map((q) => {
     const v = governingValueOf(g.envelope, q)!;
     const moment = q.kind === "momentMax" || q.kind === "momentMin";
-    const none = q.kind === "momentMin" && v.value === 0;
-    const uplift = q.kind === "reactionMin" && v.value < 0;
+    // Round-off (within 1e-9 of the member's largest value of the kind) is neither hogging nor uplift.
+    const none = q.kind === "momentMin" && Math.abs(v.value) <= 1e-9 * Math.abs(g.envelope.momentMax.value);
+    const uplift = q.kind === "reactionMin" && v.value < -1e-9 * Math.max(0, ...g.envelope.reactionMax.map((r) => Math.abs(r.value)));
     return el(
       "tr",
       { "data-role": governingRole(q), ...(uplift ? { "data-uplift": "yes" } : {}) },

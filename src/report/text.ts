@@ -12,7 +12,7 @@ export const REPORT_CAUTION =
 
 /** Code editions and methods used, as listed in the title block. */
 export const CODE_EDITIONS: readonly string[] = [
-  "ASCE/SEI 7-22: load combinations (Sec. 2.3.1, LRFD), live load reduction (Sec. 4.7, Eq. 4.7-1, Table 4.7-2)",
+  "ASCE/SEI 7-22: load combinations (Sec. 2.3.1, LRFD), partial (pattern) loading of live load (Sec. 4.3.3), live load reduction (Sec. 4.7, Eq. 4.7-1, Table 4.7-2)",
   "Beam formulas: exact Euler–Bernoulli analysis (piecewise closed-form solution of each member)",
 ];
 

@@ -275,6 +275,7 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     expect(sagging).toHaveLength(1);
     near(sagging[0]!, (r1 * r1) / (2 * wb));
     near((await drawnReactions(page))[0]!, r1);
+    await shoot(page, "pane-diagrams-governing.png");
     // R1 min: the balcony alone carries live load. R1(D) = wD (l^2 - a^2) / (2 l), R1(L on the balcony) = -wL a^2 / (2 l).
     await page.selectOption('[data-testid="case-picker"]', "q:reactionMin:0");
     await waitFor(page, "J01", "R1 min governs: 2.3.1 (2) 1.2D + 1.6L; L on overhang right (factored)");
@@ -282,7 +283,7 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     near((await drawnReactions(page))[0]!, r1Min);
     expect(await page.textContent('[data-testid="diagram-caption"]')).toBe(`R1 min ${r1Min.toFixed(2)} kN: 2.3.1 (2) 1.2D + 1.6L; L on overhang right. Factored loads and results (LRFD).`);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
-    await shoot(page, "pane-diagrams-governing.png");
+    await shoot(page, "pane-diagrams-uplift.png");
     expect(errors).toEqual([]);
     await page.close();
   });
