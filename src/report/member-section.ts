@@ -218,12 +218,15 @@ function governingName(q: GoverningQuantity, m: MemberLoads, lengthUnit: string)
  */
 function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverning): Html {
   const u = RESULT_UNITS[record.model.units];
+  const upliftBelow = -1e-9 * Math.max(0, ...g.envelope.reactionMax.map((r) => Math.abs(r.value)));
+  // The note column (uplift) only where some support lifts.
+  const anyUplift = g.envelope.reactionMin.some((r) => r.value < upliftBelow);
   const rows = quantitiesOf(m.supports.length).map((q) => {
     const v = governingValueOf(g.envelope, q)!;
     const moment = q.kind === "momentMax" || q.kind === "momentMin";
     // Round-off (within 1e-9 of the member's largest value of the kind) is neither hogging nor uplift.
     const none = q.kind === "momentMin" && Math.abs(v.value) <= 1e-9 * Math.abs(g.envelope.momentMax.value);
-    const uplift = q.kind === "reactionMin" && v.value < -1e-9 * Math.max(0, ...g.envelope.reactionMax.map((r) => Math.abs(r.value)));
+    const uplift = q.kind === "reactionMin" && v.value < upliftBelow;
     return el(
       "tr",
       { "data-role": governingRole(q), ...(uplift ? { "data-uplift": "yes" } : {}) },
@@ -231,9 +234,9 @@ function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverni
       numCell(v.value, moment ? "moment" : "force", { "data-case": "governing" }),
       el("td", { class: "unit" }, moment ? u.moment : u.force),
       q.kind === "reactionMax" || q.kind === "reactionMin" || none ? el("td", {}, "") : numCell(v.x, "length", { "data-field": "x" }),
-      el("td", { class: "combo" }, none ? "no hogging under any combination" : labelOnMember(v.combination, g.present)),
-      el("td", { class: "pattern" }, none ? "" : v.pattern === "no pattern" ? "none (no L or Lr in this combination)" : v.pattern),
-      el("td", { class: "note" }, uplift ? "uplift: hold down" : ""),
+      el("td", { class: "combo" }, none ? "never hogs" : labelOnMember(v.combination, g.present)),
+      el("td", { class: "pattern" }, none ? "" : v.pattern === "no pattern" ? "no live load" : v.pattern),
+      anyUplift ? el("td", { class: "note" }, uplift ? "uplift: hold down" : "") : null,
     );
   });
   const caption = g.envelope.proven
@@ -243,7 +246,7 @@ function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverni
     el(
       "table",
       { class: "results governing", "data-role": "governing" },
-      el("thead", {}, el("tr", {}, el("th", {}, "Quantity"), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", { class: "num" }, `At (${u.length})`), el("th", {}, "Combination"), el("th", {}, "Live load pattern"), el("th", {}, ""))),
+      el("thead", {}, el("tr", {}, el("th", {}, "Quantity"), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", { class: "num" }, `At (${u.length})`), el("th", {}, "Combination"), el("th", {}, "Live load pattern"), anyUplift ? el("th", {}, "Note") : null)),
       el("tbody", {}, ...rows),
     ),
     caption,
