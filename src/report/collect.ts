@@ -90,10 +90,13 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const zones = await port.readTable(options.zones);
   const members = await port.readTable(options.members);
   const loads = options.loads ? await port.readTable(options.loads) : undefined;
+  // The Bearings table too: without it a continuous member would be planned on its end supports only.
+  const bearings = options.bearings ? await port.readTable(options.bearings) : undefined;
   const planned = planTakedown({
     zones,
     members,
     ...(loads ? { loads } : {}),
+    ...(bearings ? { bearings } : {}),
     units: options.units,
     ...(options.mapping ? { mapping: options.mapping } : {}),
     ...(options.headerRows ? { headerRows: options.headerRows } : {}),
