@@ -2,7 +2,8 @@
  * The report's governing values (each factored quantity with its own combination and live load
  * pattern, ASCE/SEI 7-22 Sec. 2.3.1 and 4.3.3, factors recalled from memory) against hand statics:
  * joist J01 of the SI sample (4.2 m back span, 1.2 m balcony, sample-workbooks/make-buildings.ts),
- * and an invented joist with a long overhang whose back support lifts. The drawing of the case
+ * an invented joist with a long overhang whose back support lifts, and a joist continuous over two
+ * equal spans against the published two-span cases. The drawing of the case
  * that governs M+ carries that case's caption and its moment. Runs `loadpath report` in process
  * (needs `npm run build` for the functions bundle).
  */
@@ -45,6 +46,7 @@ function row(part: string, role: string): { value: number; combination: string; 
 
 let si = "";
 let uplift = "";
+let twoSpan = "";
 
 beforeAll(async () => {
   if (missing) return;
@@ -70,6 +72,34 @@ beforeAll(async () => {
   const r2 = await cli("report", xlsx, "-o", out2, "--units", "SI", "--only", "K1", "--date", "2025-01-15");
   expect(r2.status, r2.err.join("\n")).toBe(0);
   uplift = readFileSync(out2, "utf8");
+  // Joist J1, 40 ft, continuous over G2 at its middle (two equal 20 ft spans, Bearings table), ends
+  // on walls; FLR D 50 psf, L 40 psf (not reducible) over 2 ft: w_D = 0.1, w_L = 0.08 kip/ft.
+  const xlsx3 = join(dir, "two-span.xlsx");
+  await writeSheets(xlsx3, {
+    Zones: [
+      ["Zone", "D (psf)", "L (psf)", "Reducible"],
+      ["FLR", 50, 40, "no"],
+    ],
+    Members: [
+      ["Mark", "Type", "Level", "Span (ft)", "Zone", "Trib (ft)", "Start support", "Start at (ft)", "End support", "End at (ft)"],
+      ["J1", "joist", "2", 40, "FLR", 2, "W1", null, "W3", null],
+      ["G2", "girder", "2", 20, null, null, "C1", null, "C2", null],
+      ["C1", "column", "2", 10, null, null, "F1", null, null, null],
+      ["C2", "column", "2", 10, null, null, "F2", null, null, null],
+      ["W1", "wall", "2", null, null, null, null, null, null, null],
+      ["W3", "wall", "2", null, null, null, null, null, null, null],
+      ["F1", "foundation", null, null, null, null, null, null, null, null],
+      ["F2", "foundation", null, null, null, null, null, null, null, null],
+    ],
+    Bearings: [
+      ["Mark", "Support", "At (ft)", "Support at (ft)"],
+      ["J1", "G2", 20, 5],
+    ],
+  });
+  const out3 = join(dir, "two-span.html");
+  const r3 = await cli("report", xlsx3, "-o", out3, "--only", "J1", "--date", "2025-01-15");
+  expect(r3.status, r3.err.join("\n")).toBe(0);
+  twoSpan = readFileSync(out3, "utf8");
 });
 
 describe.skipIf(missing !== null)("governing values in the report", () => {
@@ -160,5 +190,32 @@ describe.skipIf(missing !== null)("governing values in the report", () => {
     const min = /<td class="num" data-value="([^"]+)" data-case="min" data-end="start">/.exec(summary![1]!);
     expect(min).not.toBeNull();
     close(Number(min![1]), r1Min.value, "K1 summary min");
+  });
+
+  it("a joist continuous over two equal spans: each reaction and moment with its own live load pattern (AISC Steel Construction Manual Table 3-23, recalled from memory)", () => {
+    const part = section(twoSpan, "J1");
+    const l = 20;
+    const d = 0.1;
+    const lv = 0.08;
+    // Table 3-23, two equal spans: load on both spans R1 = R3 = 3/8 wl, R2 = 10/8 wl, M over R2 = -wl^2/8;
+    // load on span 1 only R1 = 7/16 wl, R2 = 10/16 wl, R3 = -1/16 wl.
+    const r1Max = row(part, "governing-reaction-1-max");
+    close(r1Max.value, 1.2 * d * (3 / 8) * l + 1.6 * lv * (7 / 16) * l, "J1 R1 max");
+    expect(r1Max.pattern).toBe("L on span 1");
+    const r2Max = row(part, "governing-reaction-2-max");
+    close(r2Max.value, (10 / 8) * (1.2 * d + 1.6 * lv) * l, "J1 R2 max");
+    expect(r2Max.pattern).toBe("L on all segments");
+    // R3 least: 1.2D + 1.6L with L on span 1 gives 1.2 x 0.75 - 1.6 x 0.1 = 0.74 kip; 0.9D gives 0.675, less.
+    const r3Min = row(part, "governing-reaction-3-min");
+    close(r3Min.value, Math.min(0.9 * d * (3 / 8) * l, 1.2 * d * (3 / 8) * l - 1.6 * lv * (1 / 16) * l), "J1 R3 min");
+    expect(r3Min.combination).toBe("2.3.1 (5) 0.9D");
+    const hog = row(part, "governing-moment-min");
+    close(hog.value, (-(1.2 * d + 1.6 * lv) * l * l) / 8, "J1 M-");
+    expect(hog.pattern).toBe("L on all segments");
+    // M+: one span loaded; in that span V = 0 at x = R1 / w, M = R1^2 / (2 w) with w = 1.2D + 1.6L.
+    const r1 = 1.2 * d * (3 / 8) * l + 1.6 * lv * (7 / 16) * l;
+    const sag = row(part, "governing-moment-max");
+    close(sag.value, (r1 * r1) / (2 * (1.2 * d + 1.6 * lv)), "J1 M+");
+    expect(sag.pattern).toMatch(/^L on span [12]$/);
   });
 });
