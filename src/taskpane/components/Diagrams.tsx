@@ -56,8 +56,8 @@ interface Shown {
   readonly pathSvg: string | null;
   /** What the figure shows, in words: the case, or the governing value with its combination, pattern and units. */
   readonly caption: string;
-  /** Supports of the member (for the reaction entries of the picker). */
-  readonly supports: number;
+  /** Marks of what holds the member up, in order along it (for the reaction entries of the picker). */
+  readonly supports: readonly string[];
 }
 
 function errorText(e: unknown): string {
@@ -135,7 +135,7 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
         // A reaction of a support this member does not have (picked on another member) falls back to M+.
         const pick = asked.kind === "governing" && "support" in asked.quantity && asked.quantity.support >= loads.supports.length ? DEFAULT_PICK : asked;
         const source = { model: built.model, deliveries: cells.path, json, loadsOf: (m: string) => cells.loadsOf(m) };
-        const supports = loads.supports.length;
+        const supports = loads.supports.map((x) => x.mark);
         if (pick.kind === "governing") {
           const g = governingDrawingOf(loads, pick.quantity, json.units);
           if (typeof g === "string") throw new Error(g);
@@ -218,7 +218,8 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
   };
 
   // Reaction entries for the member shown (two supports until one is drawn).
-  const quantities = quantitiesOf(Math.max(2, shown?.supports ?? 2));
+  const supportMarks = shown?.supports ?? [];
+  const quantities = quantitiesOf(Math.max(2, supportMarks.length));
   return (
     <div className={styles.stack} data-testid="diagrams">
       <Text size={200}>
@@ -252,7 +253,7 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
               const key = pickKey({ kind: "governing", quantity: q });
               return (
                 <option key={key} value={key}>
-                  {quantityName(q)}
+                  {"support" in q && supportMarks[q.support] ? `${quantityName(q)} (on ${supportMarks[q.support]})` : quantityName(q)}
                 </option>
               );
             })}
