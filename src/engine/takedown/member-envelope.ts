@@ -8,13 +8,10 @@
  * cut into the pieces a drawing shows (a load whose live part is off on a segment is drawn
  * there with its other cases only). Pure; units those of the takedown (kip, ft or kN, m).
  */
-import type { BeamLoad, Support } from "../beam/types";
-import { builtInCombinations, envelope, governingModel, type Envelope, type FactoredCombination, type Governing, type MemberCases } from "../envelope";
-import { DEFAULT_PATTERNED } from "../envelope/member-cases";
-import { memberSegments, segmentAt, type MemberSegment } from "../envelope/segments";
-import type { BeamModel } from "../beam/types";
+import type { BeamLoad, BeamModel, Support } from "../beam/types";
+import { builtInCombinations, DEFAULT_PATTERNED, envelope, factorOf, governingModel, memberSegments, type Envelope, type FactoredCombination, type Governing, type MemberCases, type MemberSegment } from "../envelope";
+import { segmentAt } from "../envelope/segments";
 import type { Result } from "../errors";
-import { factorOf } from "../envelope/combination-sets";
 import type { LoadCase as CombinationCase } from "../loads/combinations";
 import { isFlexural } from "./model";
 import type { AppliedLoad, MemberLoads } from "./member-loads";
@@ -100,8 +97,6 @@ export function governingBeamModel(g: MemberGoverning, governing: Governing): Re
   return governingModel(g.cases, g.combinations, governing, { patterned: PATTERNED_CASES });
 }
 
-const TERM = /^(Lr|D|L|S|R|W|E)$/;
-
 /**
  * A combination's label with only the terms of cases that load the member:
  * "2.3.1 (2) 1.2D + 1.6L + 0.5Lr" reads "2.3.1 (2) 1.2D + 1.6L" on a floor joist, and
@@ -120,7 +115,7 @@ export function labelOnMember(label: string, present: readonly LoadCase[]): stri
     const c = /(Lr|D|L|S|R|W|E)$/.exec(body)?.[1];
     return { sign, body, c };
   });
-  if (terms.some((t) => t.c === undefined || !TERM.test(t.c))) return label;
+  if (terms.some((t) => t.c === undefined)) return label;
   const kept = terms.filter((t) => (present as readonly string[]).includes(t.c!));
   if (kept.length === 0) return label;
   const text = kept.map((t, i) => (i === 0 ? (t.sign === "-" ? `-${t.body}` : t.body) : ` ${t.sign} ${t.body}`)).join("");
