@@ -42,7 +42,8 @@ function titleBlock(drawing: MemberDrawing): Block {
   const typeRoom = room - textWidth(mark, FONT.title, true) - 6;
   const type = drawing.memberType === undefined ? "" : fit(truncate(drawing.memberType, 16), typeRoom, FONT.label, false);
   if (type.trim() !== "") body += text(PAD + textWidth(mark, FONT.title, true) + 6, 13, type, { size: FONT.label, fill: PALETTE.muted });
-  const parts = [`Case ${truncate(drawing.caseLabel, 40)}`];
+  // Up to 120 characters: a governing case names its quantity, combination and live load pattern; long parts wrap.
+  const parts = [`Case ${truncate(drawing.caseLabel, 120)}`];
   if (drawing.level !== undefined && drawing.level.trim() !== "") {
     const level = truncate(drawing.level, 20);
     parts.push(/^level\b/i.test(level) ? level : `Level ${level}`);

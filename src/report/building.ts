@@ -12,7 +12,8 @@ import type { LoadCase } from "../engine/takedown/types";
 import { RESULT_UNITS } from "../engine/takedown/units";
 import { formatDifference } from "../drawings/format";
 import type { TakedownRecord } from "./collect";
-import { gravityCombinations } from "./factored";
+import { ENUMERATION_LIMIT } from "../engine/envelope";
+import { gravityCombinations, memberGoverningCached } from "./factored";
 import { DECIMALS, el, fixed, numCell, type Html } from "./html";
 
 /**
@@ -70,6 +71,11 @@ export function provisions(record: TakedownRecord): Provision[] {
       source: "ASCE/SEI 7-22 Sec. 2.3.1 (LRFD), without the 0.5L exception; factors recalled from memory, verify against the standard",
     },
     {
+      what: "Partial (pattern) loading of live load, governing values of beams",
+      values: `L and Lr switched on and off span by span (each span between supports and each overhang) in every combination; D, S and R on the whole member. Every on/off pattern is solved when a member has at most ${ENUMERATION_LIMIT} loaded span-and-case pieces, else the patterns of alternating spans around each span. Least reactions also under 2.3.1 (5) as 0.9D (no wind load)`,
+      source: "ASCE/SEI 7-22 Sec. 4.3.3 (recalled from memory, verify against the standard); 0.9D: Sec. 2.3.1 combination 5 with W = 0",
+    },
+    {
       what: "Reduction of uniformly distributed live load",
       values: `L = Lo (0.25 + ${LLR_COEFFICIENT[units]} / √(K_LL·A_T)); none where K_LL·A_T < ${LLR_THRESHOLD_AREA[units]} ${u.area}; L ≥ ${fixed(LLR_FLOOR_ONE_LEVEL, 2)} Lo for members supporting one floor, ≥ ${fixed(LLR_FLOOR_MULTI_LEVEL, 2)} Lo for two or more`,
       source: "ASCE/SEI 7-22 Sec. 4.7.2, 4.7.3, Eq. 4.7-1; coefficients and limits recalled from memory, verify against the standard",
@@ -104,7 +110,9 @@ export function provisionsTable(record: TakedownRecord): Html {
 
 /**
  * Every beam, girder and joist with its two end reactions per case (unfactored, live load not
- * reduced: docs/interface.md section 4, `members.MARK.reactions`) and what each end bears on.
+ * reduced: docs/interface.md section 4, `members.MARK.reactions`), what each end bears on, and the
+ * largest and smallest factored reaction of each end (each with its own combination and live load
+ * pattern, shown in the member's section; a negative least reaction is uplift).
  */
 export function reactionSummary(record: TakedownRecord): Html | null {
   const cases = record.model.cases;
@@ -113,20 +121,28 @@ export function reactionSummary(record: TakedownRecord): Html | null {
   if (beams.length === 0) return null;
   const rows = beams.map((m) => {
     const r = record.json.members[m.mark]!.reactions;
-    const end = (k: 0 | 1): Html[] => [
-      el("td", { class: "mark", "data-role": k === 0 ? "start-support" : "end-support" }, m.supports[k]?.mark ?? ""),
-      ...cases.map((c) => numCell(r[c]?.[k] ?? null, "force", { "data-case": c, "data-end": k === 0 ? "start" : "end" })),
-    ];
-    return el("tr", { "data-role": "reactions", "data-member": m.mark }, el("td", { class: "mark" }, m.mark), el("td", {}, m.level), ...end(0), ...end(1));
+    const g = memberGoverningCached(m);
+    const env = g !== null && g.ok ? g.value.envelope : null;
+    const end = (which: "start" | "end"): Html[] => {
+      // Start is the first support along the member, end the last (a continuous member's interior supports are in its own section).
+      const k = which === "start" ? 0 : Math.max(0, m.supports.length - 1);
+      return [
+        el("td", { class: "mark", "data-role": `${which}-support` }, m.supports[k]?.mark ?? ""),
+        ...cases.map((c) => numCell(r[c]?.[k] ?? null, "force", { "data-case": c, "data-end": which })),
+        numCell(env?.reactionMax[k]?.value ?? null, "force", { "data-case": "max", "data-end": which }),
+        numCell(env?.reactionMin[k]?.value ?? null, "force", { "data-case": "min", "data-end": which }),
+      ];
+    };
+    return el("tr", { "data-role": "reactions", "data-member": m.mark }, el("td", { class: "mark" }, m.mark), el("td", {}, m.level), ...end("start"), ...end("end"));
   });
-  const caseHeads = (): Html[] => cases.map((c) => el("th", { class: "num" }, c));
+  const caseHeads = (): Html[] => [...cases.map((c) => el("th", { class: "num" }, c)), el("th", { class: "num" }, "Max"), el("th", { class: "num" }, "Min")];
   return el(
     "table",
     { class: "schedule reactions", "data-role": "reaction-summary" },
     el(
       "thead",
       {},
-      el("tr", {}, el("th", { rowspan: 2 }, "Member"), el("th", { rowspan: 2 }, "Level"), el("th", { colspan: cases.length + 1 }, `Start (${u.force})`), el("th", { colspan: cases.length + 1 }, `End (${u.force})`)),
+      el("tr", {}, el("th", { rowspan: 2 }, "Member"), el("th", { rowspan: 2 }, "Level"), el("th", { colspan: cases.length + 3 }, `Start (${u.force})`), el("th", { colspan: cases.length + 3 }, `End (${u.force})`)),
       el("tr", {}, el("th", {}, "Bears on"), ...caseHeads(), el("th", {}, "Bears on"), ...caseHeads()),
     ),
     el("tbody", {}, ...rows),

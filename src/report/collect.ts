@@ -12,7 +12,7 @@ import { loadsOfMembers, type MemberLoads } from "../engine/takedown/member-load
 import { numberOf } from "../engine/takedown/cells";
 import { isFlexural } from "../engine/takedown/model";
 import { a1 } from "../engine/a1";
-import { governingCombination } from "./factored";
+import { memberGoverningCached as memberGoverning } from "./factored";
 import type { Problem } from "../workbook/takedown-api";
 import { cellAddress, sheetRef } from "../workbook/a1";
 import type { CellValue, RangeData, WorkbookPort } from "../workbook/port";
@@ -90,6 +90,7 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const zones = await port.readTable(options.zones);
   const members = await port.readTable(options.members);
   const loads = options.loads ? await port.readTable(options.loads) : undefined;
+  // The Bearings table too: without it a continuous member would be planned on its end supports only.
   const bearings = options.bearings ? await port.readTable(options.bearings) : undefined;
   const planned = planTakedown({
     zones,
@@ -166,10 +167,18 @@ export function reportGaps(plan: SheetPlan, model: TakedownModel, members: Reado
       liveReduction: m.liveReduction,
     };
     let gap = firstNonFinite(printed, mark);
-    // Factoring can only overflow numbers already near the largest double: skip the exact solution otherwise.
-    if (gap === null && isFlexural(m.type) && largest(printed) > 1e300) {
-      const g = governingCombination(m);
-      if (g !== null) gap = firstNonFinite({ magnitudes: g.magnitudes, reactions: g.reactions, shearMax: g.shearMax, momentMax: g.momentMax }, `${mark} governing combination`);
+    if (gap === null && isFlexural(m.type)) {
+      const g = memberGoverning(m);
+      if (g !== null && !g.ok) {
+        out.push({ code: "errorResult", message: `${mark}: the report cannot give its governing values: ${g.error.message}`, sheet: plan.sheet, cell: a1(place.row, 0), mark });
+        continue;
+      }
+      // Factoring can only overflow numbers already near the largest double.
+      if (g !== null && largest(printed) > 1e300) {
+        const e = g.value.envelope;
+        const values = { momentMax: e.momentMax.value, momentMin: e.momentMin.value, shearMax: e.shearMax.value, reactionMax: e.reactionMax.map((v) => v.value), reactionMin: e.reactionMin.map((v) => v.value) };
+        gap = firstNonFinite(values, `${mark} governing values`);
+      }
     }
     if (gap === null) continue;
     out.push({

@@ -5,6 +5,7 @@
  * The SVG itself comes from the shared pure renderers (src/drawings), the same ones the pane uses.
  */
 import type { AppliedLoad, MemberLoads, MemberSupport } from "../engine/takedown/member-loads";
+import type { GoverningPiece } from "../engine/takedown/member-envelope";
 import { isFlexural, type MemberType } from "../engine/takedown/model";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
 import { formatLength } from "../drawings/format";
@@ -44,7 +45,6 @@ export function originLabel(l: AppliedLoad): string {
  * @param magnitudes - magnitude of each of the member's loads, in its order (kip/ft or kip)
  */
 export function memberDrawing(member: MemberLoads, units: UnitSystem, caseLabel: string, magnitudes: readonly number[]): MemberDrawing {
-  const u = drawingUnits(units);
   const lines: DrawnLineLoad[] = [];
   const points: DrawnPointLoad[] = [];
   member.loads.forEach((l, i) => {
@@ -53,6 +53,32 @@ export function memberDrawing(member: MemberLoads, units: UnitSystem, caseLabel:
     if (l.kind === "line") lines.push({ start: l.start, end: l.end ?? l.start, w1: w, w2: w, label: originLabel(l) });
     else points.push({ x: l.start, p: w, from: originLabel(l) });
   });
+  return drawingOf(member, units, caseLabel, lines, points);
+}
+
+/**
+ * The member sheet input of a governing case: its factored pieces (src/engine/takedown/
+ * member-envelope.ts), each labelled with where its load comes from and, where the pattern has a
+ * live case off, that first ("L off: BALCONY row 3").
+ * @param member - a beam, girder or joist
+ * @param units - the takedown's unit system
+ * @param caption - the governing case ("M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on span 1 (factored)")
+ * @param pieces - the factored loads of that case
+ */
+export function governingDrawing(member: MemberLoads, units: UnitSystem, caption: string, pieces: readonly GoverningPiece[]): MemberDrawing {
+  const lines: DrawnLineLoad[] = [];
+  const points: DrawnPointLoad[] = [];
+  for (const p of pieces) {
+    // The pattern first, so that a shortened label still says which live load is off.
+    const label = p.off.length > 0 ? `${p.off.join(", ")} off: ${originLabel(p.load)}` : originLabel(p.load);
+    if (p.load.kind === "line") lines.push({ start: p.start, end: p.end, w1: p.value, w2: p.value, label });
+    else points.push({ x: p.start, p: p.value, from: label });
+  }
+  return drawingOf(member, units, caption, lines, points);
+}
+
+function drawingOf(member: MemberLoads, units: UnitSystem, caseLabel: string, lines: DrawnLineLoad[], points: DrawnPointLoad[]): MemberDrawing {
+  const u = drawingUnits(units);
   return {
     mark: member.mark,
     memberType: member.type,

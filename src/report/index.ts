@@ -5,6 +5,6 @@
 export { collectTakedown, type TakedownRecord } from "./collect";
 export { renderReport, REPORT_CSP, type ReportInput } from "./document";
 export { REPORT_CAUTION } from "./text";
-export { governingCombination, factoredMember, gravityCombinations, type FactoredMember } from "./factored";
+export { gravityCombinations } from "./factored";
 export { loadPathTree, memberDrawing } from "./drawings";
 export { columnStacks } from "./schedule";

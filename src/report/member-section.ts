@@ -1,9 +1,10 @@
 /**
  * One member's section of the report. A beam, girder or joist: its supports, the table of the
- * loads it carries (where each comes from), the table of results per case and for the governing
- * factored combination with the source of each formula, its live load reduction, the member
- * sheets (free-body, shear and moment diagrams) of each case and of the governing combination,
- * and its load path. A column: what arrives at its level, its cumulative loads, live load
+ * loads it carries (where each comes from), the table of results per case with the source of each
+ * formula, the governing values (M+, M-, |V| and each reaction's largest and smallest value, each
+ * with its own combination and live load pattern), its live load reduction, the member sheets
+ * (free-body, shear and moment diagrams) of each case and of the case that governs M+, and its
+ * load path. A column: what arrives at its level, its cumulative loads, live load
  * reduction and governing combination, and its load path. A wall or foundation: what bears on it.
  */
 import { solveBeam } from "../engine/beam/index";
@@ -15,9 +16,10 @@ import { RESULT_UNITS } from "../engine/takedown/units";
 import { renderLoadPath } from "../drawings/load-path";
 import { renderMemberSheet } from "../drawings/sheet";
 import type { TakedownRecord } from "./collect";
-import { caseMagnitudes, loadPathTree, memberDrawing, supportLabel } from "./drawings";
+import { caseMagnitudes, governingDrawing, loadPathTree, memberDrawing, supportLabel } from "./drawings";
 import type { CombinationTerm } from "../engine/loads/combinations";
-import { beamLoadsOf, governingCombination, gravityCombinations, shortLabel, type FactoredMember } from "./factored";
+import { governingCaption, governingOf as governingValueOf, governingPieces, labelOnMember, quantitiesOf, type GoverningQuantity, type MemberGoverning } from "../engine/takedown/member-envelope";
+import { beamLoadsOf, gravityCombinations, memberGoverningCached, shortLabel } from "./factored";
 import { DECIMALS, el, fixed, join, length, numCell, raw, type Child, type Html } from "./html";
 import { SOURCES } from "./text";
 
@@ -102,28 +104,25 @@ function hasOverhang(m: MemberLoads): boolean {
 }
 
 /** One row of the results table. */
-function resultRow(quantity: Child, role: string, perCase: readonly (number | null)[], factored: number | null | undefined, kind: "force" | "moment", unit: string, source: string, cases: readonly LoadCase[], withFactored: boolean): Html {
+function resultRow(quantity: Child, role: string, perCase: readonly (number | null)[], kind: "force" | "moment", unit: string, source: string, cases: readonly LoadCase[]): Html {
   return el(
     "tr",
     { "data-role": role },
     el("th", { scope: "row" }, quantity),
     ...perCase.map((v, k) => numCell(v, kind, { "data-case": cases[k] })),
-    withFactored ? numCell(factored ?? null, kind, { "data-case": "governing" }) : null,
     el("td", { class: "unit" }, unit),
     el("td", { class: "source" }, source),
   );
 }
 
-/** The results table of a flexural member: reactions, V max, M max per case and governing. */
-function resultsTable(record: TakedownRecord, m: MemberLoads, r: MemberResult, f: FactoredMember | null, cases: readonly LoadCase[]): Html {
+/** The results table of a flexural member: reactions, V max, M max per case (unfactored, live load not reduced). */
+function resultsTable(record: TakedownRecord, m: MemberLoads, r: MemberResult, cases: readonly LoadCase[]): Html {
   const u = RESULT_UNITS[record.model.units];
-  const withF = f !== null;
   const head = el(
     "tr",
     {},
     el("th", {}, "Result"),
     ...caseHeaders(cases),
-    withF ? el("th", { class: "num governing" }, "Governing ", el("span", { class: "combo" }, f.label)) : null,
     el("th", {}, "Unit"),
     el("th", {}, "Source"),
   );
@@ -132,17 +131,15 @@ function resultsTable(record: TakedownRecord, m: MemberLoads, r: MemberResult, f
       join([`R${k + 1} at ${length(s.x ?? Number.NaN)} ${u.length}`, el("span", { class: "sub" }, ` on ${supportLabel(s, u.length)}`)]),
       `reaction-${k + 1}`,
       cases.map((c) => r.reactions[c]?.[k] ?? null),
-      f?.reactions[k],
       "force",
       u.force,
       SOURCES.reaction,
       cases,
-      withF,
     ),
   );
-  rows.push(resultRow("V max", "shear-max", cases.map((c) => r.shearMax[c] ?? null), f?.shearMax, "force", u.force, SOURCES.shear, cases, withF));
-  rows.push(resultRow("M max (sagging)", "moment-max", cases.map((c) => r.momentMax[c] ?? null), f?.momentMax, "moment", u.moment, SOURCES.moment, cases, withF));
-  if (hasOverhang(m)) rows.push(resultRow("M min (hogging)", "moment-min", cases.map((c) => hoggingOf(m, c)), f?.momentMin, "moment", u.moment, SOURCES.hogging, cases, withF));
+  rows.push(resultRow("V max", "shear-max", cases.map((c) => r.shearMax[c] ?? null), "force", u.force, SOURCES.shear, cases));
+  rows.push(resultRow("M max (sagging)", "moment-max", cases.map((c) => r.momentMax[c] ?? null), "moment", u.moment, SOURCES.moment, cases));
+  if (hasOverhang(m)) rows.push(resultRow("M min (hogging)", "moment-min", cases.map((c) => hoggingOf(m, c)), "moment", u.moment, SOURCES.hogging, cases));
   return el("table", { class: "results", "data-role": "results" }, el("thead", {}, head), el("tbody", {}, ...rows));
 }
 
@@ -179,6 +176,83 @@ function figure(svg: string, role: string): Html {
   return el("figure", { class: "drawing", "data-role": role }, raw(svg));
 }
 
+/** Role of a quantity's row in the governing table: "governing-moment-max", "governing-reaction-2-min". */
+export function governingRole(q: GoverningQuantity): string {
+  switch (q.kind) {
+    case "momentMax":
+      return "governing-moment-max";
+    case "momentMin":
+      return "governing-moment-min";
+    case "shearMax":
+      return "governing-shear-max";
+    case "reactionMax":
+      return `governing-reaction-${q.support + 1}-max`;
+    case "reactionMin":
+      return `governing-reaction-${q.support + 1}-min`;
+  }
+}
+
+/** Name of a quantity in the governing table. */
+function governingName(q: GoverningQuantity, m: MemberLoads, lengthUnit: string): Child {
+  switch (q.kind) {
+    case "momentMax":
+      return "M+ (largest sagging)";
+    case "momentMin":
+      return "M\u2212 (most hogging)";
+    case "shearMax":
+      return "|V| max";
+    case "reactionMax":
+    case "reactionMin": {
+      const s = m.supports[q.support];
+      const where = s ? el("span", { class: "sub" }, ` at ${length(s.x ?? Number.NaN)} ${lengthUnit} on ${supportLabel(s, lengthUnit)}`) : null;
+      return join([`R${q.support + 1} ${q.kind === "reactionMax" ? "max" : "min"}`, where]);
+    }
+  }
+}
+
+/**
+ * The governing values of a beam: each factored quantity with its own combination (terms of cases
+ * that load the member only) and live load pattern (ASCE/SEI 7-22 Sec. 4.3.3), where it occurs.
+ * A reaction min below 0 is uplift (the support must hold the member down); an M- of 0 means the
+ * member never hogs.
+ */
+function governingTable(record: TakedownRecord, m: MemberLoads, g: MemberGoverning): Html {
+  const u = RESULT_UNITS[record.model.units];
+  const upliftBelow = -1e-9 * Math.max(0, ...g.envelope.reactionMax.map((r) => Math.abs(r.value)));
+  // The note column (uplift) only where some support lifts.
+  const anyUplift = g.envelope.reactionMin.some((r) => r.value < upliftBelow);
+  const rows = quantitiesOf(m.supports.length).map((q) => {
+    const v = governingValueOf(g.envelope, q)!;
+    const moment = q.kind === "momentMax" || q.kind === "momentMin";
+    // Round-off (within 1e-9 of the member's largest value of the kind) is neither hogging nor uplift.
+    const none = q.kind === "momentMin" && Math.abs(v.value) <= 1e-9 * Math.abs(g.envelope.momentMax.value);
+    const uplift = q.kind === "reactionMin" && v.value < upliftBelow;
+    return el(
+      "tr",
+      { "data-role": governingRole(q), ...(uplift ? { "data-uplift": "yes" } : {}) },
+      el("th", { scope: "row" }, governingName(q, m, u.length)),
+      numCell(v.value, moment ? "moment" : "force", { "data-case": "governing" }),
+      el("td", { class: "unit" }, moment ? u.moment : u.force),
+      q.kind === "reactionMax" || q.kind === "reactionMin" || none ? el("td", {}, "") : numCell(v.x, "length", { "data-field": "x" }),
+      el("td", { class: "combo" }, none ? "never hogs" : labelOnMember(v.combination, g.present)),
+      el("td", { class: "pattern" }, none ? "" : v.pattern === "no pattern" ? "no live load" : v.pattern),
+      anyUplift ? el("td", { class: "note" }, uplift ? "uplift: hold down" : "") : null,
+    );
+  });
+  const caption = g.envelope.proven
+    ? null
+    : el("p", { class: "note" }, "Patterns: too many spans to check every on/off pattern; the alternating-span rule was used with a load of mixed direction, so these values are not proven to govern.");
+  return join([
+    el(
+      "table",
+      { class: "results governing", "data-role": "governing" },
+      el("thead", {}, el("tr", {}, el("th", {}, "Quantity"), el("th", { class: "num" }, "Value"), el("th", {}, "Unit"), el("th", { class: "num" }, `At (${u.length})`), el("th", {}, "Combination"), el("th", {}, "Live load pattern"), anyUplift ? el("th", {}, "Note") : null)),
+      el("tbody", {}, ...rows),
+    ),
+    caption,
+  ]);
+}
+
 /** A flexural member's section. */
 function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number): Html {
   const r = record.json.members[m.mark];
@@ -186,19 +260,29 @@ function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number):
   const cases = casesOn(record, m);
   // Cases that put no load on the member are left out of its tables (their results are all 0).
   const shown = cases.length > 0 ? cases : record.model.cases.slice(0, 1);
-  const f = governingCombination(m);
+  const governed = memberGoverningCached(m);
+  const g = governed !== null && governed.ok ? governed.value : null;
   const supports = m.supports.map((s) => `${s.end} at ${length(s.x ?? Number.NaN)} ${u.length} on ${supportLabel(s, u.length)}`).join("; ");
   const facts = el("p", { class: "facts" }, `Length ${m.length === null ? "?" : length(m.length)} ${u.length}; pinned supports: ${supports}.`);
   const figures = [
     ...cases.map((c) => figure(renderMemberSheet(memberDrawing(m, record.model.units, c, caseMagnitudes(m, c))), `sheet-${c}`)),
-    ...(f !== null && cases.length > 0 ? [figure(renderMemberSheet(memberDrawing(m, record.model.units, f.label, f.magnitudes)), "sheet-governing")] : []),
   ];
+  if (g !== null && cases.length > 0) {
+    const q: GoverningQuantity = { kind: "momentMax" };
+    figures.push(figure(renderMemberSheet(governingDrawing(m, record.model.units, governingCaption(g, q), governingPieces(m, g, governingValueOf(g.envelope, q)!))), "sheet-governing"));
+  }
   const tree = loadPathTree(record.members, m.mark, "D", record.model.units);
   if (tree) figures.push(figure(renderLoadPath(tree), "load-path"));
   const liveNote =
-    f !== null && m.liveReduction !== null && f.terms.some((t) => t.load === "L") && m.liveReduction.llrFactor < 1
-      ? el("p", { class: "note" }, `In the factored combination the reducible live load is multiplied by L/Lo = ${fixed(m.liveReduction.llrFactor, DECIMALS.factor)} (${SOURCES.llr}).`)
+    g !== null && m.liveReduction !== null && g.present.includes("L") && m.liveReduction.llrFactor < 1
+      ? el("p", { class: "note" }, `In the factored combinations the reducible live load is multiplied by L/Lo = ${fixed(m.liveReduction.llrFactor, DECIMALS.factor)} (${SOURCES.llr}).`)
       : null;
+  const governingPart =
+    g !== null
+      ? governingTable(record, m, g)
+      : governed !== null && !governed.ok
+        ? el("p", { class: "note", "data-role": "governing-error" }, `Governing values not computed: ${governed.error.message}`)
+        : null;
   return el(
     "section",
     { class: "member flexural", id: sectionId(index), "data-mark": m.mark },
@@ -207,10 +291,12 @@ function flexuralSection(record: TakedownRecord, m: MemberLoads, index: number):
     el("h3", {}, "Loads on the member"),
     loadsTable(record, m, shown),
     el("h3", {}, "Results"),
-    r ? resultsTable(record, m, r, f, shown) : el("p", {}, "No results for this member."),
+    r ? resultsTable(record, m, r, shown) : el("p", {}, "No results for this member."),
+    g !== null || governingPart !== null ? el("h3", {}, "Governing values (factored)") : null,
+    governingPart,
     liveNote,
     r ? reductionTable(record, m, r) : null,
-    el("h3", { class: "figures-title" }, "Free-body, shear and moment diagrams; load path (case D)"),
+    el("h3", { class: "figures-title" }, "Free-body, shear and moment diagrams per case (unfactored) and of the case that governs M+ (factored); load path (case D)"),
     el("div", { class: "figures" }, ...figures),
   );
 }

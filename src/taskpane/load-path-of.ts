@@ -3,8 +3,8 @@
  * takedown: upstream from the member's loads as the sheet computed them (the reactions it
  * receives, with the members they come from, and its zone loads and Loads-table rows as leaves),
  * downstream from the takedown's results (each support's own reactions, a column's cumulative
- * load, down to the foundations). Values under a combination are the cases' values times its
- * factors, live load not reduced (each member reduces its own; the label says "no LLR"). Pure.
+ * load, down to the foundations), under one load case, unfactored (live load not reduced: each
+ * member reduces its own). Pure.
  */
 import type { Delivery, Member, TakedownModel } from "../engine/takedown";
 import { isFlexural } from "../engine/takedown/model";
@@ -128,10 +128,10 @@ function below(source: LoadPathSource, members: ReadonlyMap<string, Member>, mar
 }
 
 /**
- * The load path of a member under a case or combination.
+ * The load path of a member under one load case.
  * @param source - model, checked path, results, and members' loads read from the sheet
  * @param member - the member's loads
- * @param choice - the case or combination (live load not reduced)
+ * @param choice - the load case (unfactored, live load not reduced)
  */
 export function loadPathOf(source: LoadPathSource, member: MemberLoads, choice: CaseChoice): LoadPathTree {
   const units = drawingUnitsOf(source.json.units);
@@ -151,12 +151,11 @@ export function loadPathOf(source: LoadPathSource, member: MemberLoads, choice: 
       children: below(source, members, s.mark, choice.factors, 1, seen),
     });
   });
-  const live = choice.combination && (choice.factors.L ?? 0) !== 0;
   return {
     mark: member.mark,
     memberType: member.type,
     level: member.level,
-    caseLabel: live ? `${choice.label} (no LLR)` : choice.label,
+    caseLabel: choice.label,
     units: { force: units.force, length: units.length },
     upstream: upstreamOf(source, member, choice.factors, 1, seen, units),
     downstream,

@@ -1,30 +1,25 @@
 /**
  * From a member's loads as the takedown sheet computed them (src/engine/takedown/member-loads.ts)
- * to the drawing's input (src/drawings): one load case, or a load combination whose
- * factors multiply each case's loads (ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations, from
- * src/engine/loads/combinations.ts). Pure: no DOM, no workbook.
+ * to the drawing's input (src/drawings): one load case unfactored, or the factored case that
+ * governs one quantity (its ASCE/SEI 7-22 Sec. 2.3.1 combination, its live load pattern per
+ * Sec. 4.3.3 and the member's live load reduction). Pure: no DOM, no workbook.
  */
-import { combinationsOf } from "../engine/loads/combinations";
 import { isFlexural } from "../engine/takedown/model";
 import type { ChannelKey } from "../engine/takedown/layout";
 import type { AppliedLoad, MemberLoads } from "../engine/takedown/member-loads";
 import type { LoadCase, UnitSystem } from "../engine/takedown/types";
-import { solveDrawing } from "../drawings/model";
 import { SI_UNITS, US_UNITS, type DrawingUnits, type DrawnLineLoad, type DrawnPointLoad, type DrawnSupport, type MemberDrawing } from "../drawings/types";
-import { formatLength } from "../drawings/format";
+import { formatLength, formatQuantity } from "../drawings/format";
+import { governingCaption, governingOf, governingPieces, labelOnMember, memberGoverning, quantityName, type GoverningQuantity } from "../engine/takedown/member-envelope";
 
-/** A load case or a combination the pane can draw. */
+/** A load case the pane draws unfactored (factored cases are drawn by {@link governingDrawingOf}). */
 export interface CaseChoice {
-  /** Stable key for the selector: the case ("D") or "combo:" + the combination text. */
+  /** Stable key for the selector: the case ("D"). */
   readonly key: string;
-  /** What the drawing's title shows: "D" or "1.2D + 1.6L". */
+  /** What the drawing's title shows: "D". */
   readonly label: string;
-  /** Factor of each load case (a single case has factor 1 on itself). */
+  /** Factor 1 on the case itself. */
   readonly factors: Readonly<Partial<Record<LoadCase, number>>>;
-  /** True for combinations (live load reduction applies to them, not to a single case). */
-  readonly combination: boolean;
-  /** The combination's terms as the standard writes them ("1.6L"); one term for a single case. */
-  readonly terms: readonly { readonly load: LoadCase; readonly text: string }[];
 }
 
 /** Drawing units of a takedown's unit system. */
@@ -34,54 +29,7 @@ export function drawingUnitsOf(units: UnitSystem): DrawingUnits {
 
 /** The takedown's load cases as choices, in the takedown's order. */
 export function caseChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
-  return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 }, combination: false, terms: [{ load: c, text: c }] }));
-}
-
-/**
- * The gravity combinations of ASCE/SEI 7-22 Sec. 2.3.1 (strength design, no wind or seismic
- * term) for the cases a takedown carries: terms of absent cases dropped, duplicates merged,
- * single-case rows kept only when they carry a factor other than 1 (1.4D).
- * @param cases - load cases of the takedown
- */
-export function combinationChoicesOf(cases: readonly LoadCase[]): CaseChoice[] {
-  const present = new Set<string>(cases);
-  const seen = new Set<string>();
-  const out: CaseChoice[] = [];
-  for (const c of combinationsOf({ method: "LRFD", halfLive: false })) {
-    if (c.terms.some((t) => t.load === "W" || t.load === "E")) continue;
-    const terms = c.terms.filter((t) => present.has(t.load) && t.factor !== 0);
-    if (terms.length === 0 || (terms.length === 1 && terms[0]!.factor === 1)) continue;
-    const label = terms.map((t) => t.text).join(" + ");
-    if (seen.has(label)) continue;
-    seen.add(label);
-    const factors: Partial<Record<LoadCase, number>> = {};
-    for (const t of terms) factors[t.load as LoadCase] = (factors[t.load as LoadCase] ?? 0) + t.factor;
-    out.push({ key: `combo:${label}`, label, factors, combination: true, terms: terms.map((t) => ({ load: t.load as LoadCase, text: t.text })) });
-  }
-  return out;
-}
-
-/**
- * The factor a combination puts on each channel of a member, with the member's live load
- * reduction (ASCE/SEI 7-22 Sec. 4.7) on the reducible part of L for combinations:
- * L_effective = L - Lred + factor x Lred when the takedown carries Lred apart, factor x L when all
- * live load is reducible.
- */
-function channelFactors(member: MemberLoads, choice: CaseChoice): Partial<Record<ChannelKey, number>> {
-  const out: Partial<Record<ChannelKey, number>> = { ...choice.factors };
-  const fL = choice.factors.L ?? 0;
-  const llr = member.liveReduction?.llrFactor;
-  if (!choice.combination || fL === 0 || llr === undefined || !Number.isFinite(llr) || llr >= 1) return out;
-  if (member.reducibleLive === "L") out.L = fL * llr;
-  else if (member.reducibleLive === "Lred") out.Lred = fL * (llr - 1);
-  return out;
-}
-
-/** The live load reduction factor applied to a combination's L on this member (1 when none). */
-export function appliedLiveReduction(member: MemberLoads, choice: CaseChoice): number {
-  const llr = member.liveReduction?.llrFactor;
-  if (!choice.combination || !(choice.factors.L ?? 0) || llr === undefined || !Number.isFinite(llr) || member.reducibleLive === null) return 1;
-  return Math.min(1, llr);
+  return cases.map((c) => ({ key: c, label: c, factors: { [c]: 1 } }));
 }
 
 /** Sum of factor x magnitude over the channels (NaN when a needed channel is not a number). */
@@ -92,13 +40,6 @@ export function combine(magnitudes: Readonly<Partial<Record<ChannelKey, number>>
     if (f !== 0 && v !== undefined) total += f * v;
   }
   return total;
-}
-
-/** A member's reaction at support k under a choice, from the sheet's per-case reactions. */
-export function combinedReaction(member: MemberLoads, choice: CaseChoice, k: number): number {
-  const per: Partial<Record<ChannelKey, number>> = {};
-  for (const [key, values] of Object.entries(member.reactions) as [ChannelKey, readonly number[]][]) per[key] = values[k] ?? 0;
-  return combine(per, channelFactors(member, choice));
 }
 
 /** A length as the report prints it (the shared formatter): at most two decimals, no exponent. */
@@ -131,38 +72,18 @@ function supportLabel(s: MemberLoads["supports"][number], units: DrawingUnits): 
 }
 
 /**
- * A combination as it reads on one member: terms of cases that put no load on it are left out
- * of the label ("1.2D + 1.6L + 0.5Lr" on a floor beam reads "1.2D + 1.6L"); the factors, and so
- * every number, are unchanged.
- * @param choice - a case or combination
- * @param member - the member's loads
- */
-export function choiceOnMember(choice: CaseChoice, member: MemberLoads): CaseChoice {
-  if (!choice.combination) return choice;
-  const carries = (c: LoadCase): boolean => (member.reactions[c] ?? []).some((v) => v !== 0);
-  const kept = choice.terms.filter((t) => carries(t.load));
-  return kept.length === 0 || kept.length === choice.terms.length ? choice : { ...choice, label: kept.map((t) => t.text).join(" + ") };
-}
-
-/** The label of a choice on one member: the combination text, and the live load reduction applied. */
-export function choiceLabel(member: MemberLoads, choice: CaseChoice): string {
-  const r = appliedLiveReduction(member, choice);
-  return r < 1 ? `${choice.label}, L \u00D7 ${r.toFixed(2)}` : choice.label;
-}
-
-/**
- * The drawing of a beam, girder or joist under a case or combination: its supports (labelled
+ * The drawing of a beam, girder or joist under one load case, unfactored: its supports (labelled
  * with what holds it up), its line loads over their intervals and the reactions and point loads
- * it receives, each magnitude the sheet's per-case value times the choice's factor.
+ * it receives, each magnitude the sheet's value of that case (live load not reduced).
  * @param member - the member's loads from the computed takedown sheet
- * @param choice - a case or combination
+ * @param choice - a load case
  * @param units - the takedown's unit system
  * @returns the drawing, or null for a member that does not bend (column, wall, foundation) or has no length
  */
 export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: UnitSystem): MemberDrawing | null {
   if (!isFlexural(member.type) || member.length === null || !(member.length > 0)) return null;
   const u = drawingUnitsOf(units);
-  const factors = channelFactors(member, choice);
+  const factors: Readonly<Partial<Record<ChannelKey, number>>> = choice.factors;
   const supports: DrawnSupport[] = member.supports.map((s) => ({ x: s.x ?? 0, type: "pin" as const, label: supportLabel(s, u) }));
   const lines: DrawnLineLoad[] = [];
   const points: DrawnPointLoad[] = [];
@@ -182,35 +103,89 @@ export function memberDrawingOf(member: MemberLoads, choice: CaseChoice, units: 
     lines,
     points,
     moments: [],
-    caseLabel: choiceLabel(member, choice),
+    caseLabel: choice.label,
   };
 }
 
-/** Largest bending moment magnitude of a drawing, by the exact beam engine (NaN when it cannot be solved). */
-export function largestMoment(drawing: MemberDrawing): number {
-  const solved = solveDrawing(drawing);
-  if (!solved.ok) return Number.NaN;
-  return Math.max(solved.value.maxSagging().value, -solved.value.maxHogging().value);
+
+/**
+ * What the diagrams show: a load case unfactored (live load as computed, not reduced), or the
+ * factored case that governs one quantity of a beam (its combination, live load pattern and
+ * reduced live load; src/engine/takedown/member-envelope.ts).
+ */
+export type DiagramPick = { readonly kind: "case"; readonly loadCase: LoadCase } | { readonly kind: "governing"; readonly quantity: GoverningQuantity };
+
+/** Key of a pick in the selector: the case ("D") or "q:momentMax", "q:reactionMin:1". */
+export function pickKey(p: DiagramPick): string {
+  if (p.kind === "case") return p.loadCase;
+  const q = p.quantity;
+  return q.kind === "reactionMax" || q.kind === "reactionMin" ? `q:${q.kind}:${q.support}` : `q:${q.kind}`;
+}
+
+/** The pick of a selector key (null for a key that names nothing). */
+export function pickOf(key: string, cases: readonly LoadCase[]): DiagramPick | null {
+  if ((cases as readonly string[]).includes(key)) return { kind: "case", loadCase: key as LoadCase };
+  const m = /^q:(momentMax|momentMin|shearMax)$/.exec(key);
+  if (m) return { kind: "governing", quantity: { kind: m[1] as "momentMax" | "momentMin" | "shearMax" } };
+  const r = /^q:(reactionMax|reactionMin):(\d+)$/.exec(key);
+  if (r) return { kind: "governing", quantity: { kind: r[1] as "reactionMax" | "reactionMin", support: Number(r[2]) } };
+  return null;
+}
+
+/** A governing case drawn: the drawing, its caption and the governing value. */
+export interface GoverningShown {
+  readonly drawing: MemberDrawing;
+  /** "M+ 5.15 kN·m at 1.89 m: 2.3.1 (2) 1.2D + 1.6L; L on span 1. Factored loads and results (LRFD)." */
+  readonly caption: string;
+  readonly value: number;
 }
 
 /**
- * The governing combination of a member: for a beam, the one with the largest bending moment
- * (exact beam engine, every combination solved); for a column, wall or foundation the one with
- * the largest total load. Ties go to the first in the standard's order.
- * @param member - the member's loads
- * @param combinations - from {@link combinationChoicesOf}
+ * The drawing of the factored case that governs a quantity of a beam, girder or joist: its loads
+ * times the combination's factors, the reducible live load times L/Lo, a live case only on the
+ * segments where the pattern has it on (a load whose live part is off there says so, "L off").
+ * @param member - the member's loads from the computed takedown sheet
+ * @param quantity - M+, M-, |V| or a reaction's max or min
  * @param units - the takedown's unit system
+ * @returns the drawing and caption; null for a member that does not bend; an error message when the engine refuses the member
  */
-export function governingChoice(member: MemberLoads, combinations: readonly CaseChoice[], units: UnitSystem): CaseChoice | null {
-  let best: CaseChoice | null = null;
-  let bestValue = Number.NEGATIVE_INFINITY;
-  for (const c of combinations) {
-    const drawing = memberDrawingOf(member, c, units);
-    const value = drawing ? largestMoment(drawing) : combinedReaction(member, c, 0) + combinedReaction(member, c, 1);
-    if (Number.isFinite(value) && value > bestValue) {
-      best = c;
-      bestValue = value;
-    }
+export function governingDrawingOf(member: MemberLoads, quantity: GoverningQuantity, units: UnitSystem): GoverningShown | string | null {
+  const g = memberGoverning(member);
+  if (g === null) return null;
+  if (!g.ok) return g.error.message;
+  const value = governingOf(g.value.envelope, quantity);
+  if (value === undefined) return `${member.mark} has no support ${"support" in quantity ? quantity.support + 1 : ""}.`;
+  const u = drawingUnitsOf(units);
+  const combination = g.value.combinations[value.combinationIndex]!;
+  const factors = combination.factors as Readonly<Partial<Record<ChannelKey, number>>>;
+  const lines: DrawnLineLoad[] = [];
+  const points: DrawnPointLoad[] = [];
+  for (const p of governingPieces(member, g.value, value)) {
+    const origin = originText(p.load, factors);
+    // The pattern first, so that a shortened label still says which live load is off.
+    const label = p.off.length > 0 ? `${p.off.join(", ")} off${origin !== "" ? `: ${origin}` : ""}` : origin;
+    if (p.load.kind === "line") lines.push({ start: p.start, end: p.end, w1: p.value, w2: p.value, label });
+    else points.push({ x: p.start, p: p.value, from: label });
   }
-  return best;
+  const moment = quantity.kind === "momentMax" || quantity.kind === "momentMin";
+  const llr = member.liveReduction?.llrFactor;
+  const reduced = g.value.present.includes("L") && member.reducibleLive !== null && llr !== undefined && Number.isFinite(llr) && llr < 1 && (factors.L ?? 0) !== 0;
+  const at = quantity.kind === "reactionMax" || quantity.kind === "reactionMin" ? "" : ` at ${fmt(value.x)} ${u.length}`;
+  const pattern = value.pattern === "no pattern" ? "" : `; ${value.pattern}`;
+  const caption =
+    `${quantityName(quantity)} ${formatQuantity(value.value, moment ? "moment" : "force")} ${moment ? u.moment : u.force}${at}: ` +
+    `${labelOnMember(value.combination, g.value.present)}${pattern}. Factored loads and results (LRFD)${reduced ? `, L \u00D7 ${llr.toFixed(2)}` : ""}.`;
+  const drawing: MemberDrawing = {
+    mark: member.mark,
+    memberType: member.type,
+    level: member.level,
+    span: member.length ?? Number.NaN,
+    units: u,
+    supports: member.supports.map((s) => ({ x: s.x ?? 0, type: "pin" as const, label: supportLabel(s, u) })),
+    lines,
+    points,
+    moments: [],
+    caseLabel: `${governingCaption(g.value, quantity)}${reduced ? `, L \u00D7 ${llr.toFixed(2)}` : ""}`,
+  };
+  return { drawing, caption, value: value.value };
 }

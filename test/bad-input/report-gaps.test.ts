@@ -1,6 +1,7 @@
 /**
  * The report never prints "?" silently: a member whose printed numbers include one that is not
- * finite is a listed problem at its row of the generated sheet (unless the build listed it already).
+ * finite is a listed problem at its row of the generated sheet (unless the build listed it already),
+ * and so is a beam whose governing values the engine refuses.
  * Needs `npm run build` (the headless engine loads the built functions bundle).
  */
 import { describe, expect, it } from "vitest";
@@ -27,5 +28,12 @@ describe("report gaps", () => {
     expect(gaps[0]!.message).toContain("B1.reactions.D[0]");
     // Listed by the build already: not listed twice.
     expect(reportGaps(record.plan, record.model, broken, gaps)).toEqual([]);
+    // A member whose governing values cannot be found (here a support placed past its end, which the
+    // beam engine refuses) is listed with the engine's message, not left as a note only.
+    const outside = new Map(record.members);
+    outside.set("B1", { ...b1, supports: b1.supports.map((s, k) => (k === 1 ? { ...s, x: 25 } : s)) });
+    const refused = reportGaps(record.plan, record.model, outside, []);
+    expect(refused.map((g) => [g.code, g.mark])).toEqual([["errorResult", "B1"]]);
+    expect(refused[0]!.message).toMatch(/^B1: the report cannot give its governing values: .*outside the member/);
   });
 });

@@ -172,15 +172,18 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     girderL.forEach((r, k) => near(r, reference.members[GIRDER]!.reactions.L![k]!));
     expect(girderL[0]).not.toBeCloseTo(girderD[0]!, 3);
 
-    // A combination: factored per-case loads, the girder's live load reduction on L
-    // (its OFFICE live load is reducible; ASCE/SEI 7-22 Sec. 2.3.1 combination 2, Sec. 4.7).
+    // The case that governs M+: factored per-case loads, the girder's live load reduction on L
+    // (its OFFICE live load is reducible; ASCE/SEI 7-22 Sec. 2.3.1 combination 2, Sec. 4.7); one
+    // span, so the live load pattern is the whole girder. No load path beside it (that is unfactored, per case).
     const llr = reference.members[GIRDER]!.llrFactor;
     expect(llr).toBeLessThan(1);
-    await page.selectOption('[data-testid="case-picker"]', "combo:1.2D + 1.6L");
-    const label = `1.2D + 1.6L, L \u00D7 ${llr.toFixed(2)}`;
+    await page.selectOption('[data-testid="case-picker"]', "q:momentMax");
+    const label = `M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on all segments (factored), L \u00D7 ${llr.toFixed(2)}`;
     await waitFor(page, GIRDER, label);
     const girderU = await drawnReactions(page);
     girderU.forEach((r, k) => near(r, 1.2 * reference.members[GIRDER]!.reactions.D![k]! + 1.6 * llr * reference.members[GIRDER]!.reactions.L![k]!));
+    expect(await page.locator('[data-testid="load-path"]').count()).toBe(0);
+    expect(await page.textContent('[data-testid="diagram-caption"]')).toMatch(/^M\+ [\d.]+ kip-ft at [\d.]+ ft: 2\.3\.1 \(2\) 1\.2D \+ 1\.6L; L on all segments\. Factored loads and results \(LRFD\), L \u00D7 0\.\d\d\.$/);
 
     // Readable at 320 px: nothing wider than the viewport, drawings scaled to the pane.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
@@ -201,7 +204,7 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     await page.keyboard.press("ArrowDown");
     const first = await page.inputValue('[data-testid="member-picker"]');
     expect(first).not.toBe("");
-    await page.waitForSelector(`[data-testid="load-path"][data-mark="${first}"]`, { timeout: 30_000 });
+    await page.waitForSelector(`[data-testid="diagram-caption"][data-mark="${first}"]`, { timeout: 30_000 });
     await page.click('[data-testid="copy-picture"]');
     await page.waitForSelector('[data-testid="diagram-status"]:has-text("copied")');
     const copied = await page.evaluate(async () => {
@@ -248,6 +251,39 @@ describe.skipIf(missing !== null)("member diagrams in the pane", () => {
     expect(supports).toEqual([0, 4.2]);
     expect(await page.textContent('[data-testid="member-sheet"] [data-role="case"]')).toMatch(/span 5\.4 m/);
     await shoot(page, "pane-diagrams-si.png");
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+  it("draws the case that governs the quantity picked: J01's M+ with the balcony's live load off, and its least back reaction", async () => {
+    const { page, errors } = await openBuilt("?sample=timber");
+    // J01 (make-buildings.ts): joists at 0.6 m, FLOOR D 0.6 / L 1.9 kPa on the 4.2 m back span,
+    // BALCONY D 0.6 / L 2.9 kPa on the 1.2 m overhang, wD 0.15 kN/m; A_T = 2.52 m², no reduction.
+    expect(referenceSI.members.J01!.llrFactor).toBe(1);
+    const l = 4.2;
+    const a = 1.2;
+    const wD = 0.15 + 0.6 * 0.6;
+    const wb = 1.2 * wD + 1.6 * 1.9 * 0.6;
+    const wo = 1.2 * wD;
+    // Statics of the overhanging joist with the balcony's live load off: R1 = w_b l / 2 - w_o a^2 / (2 l),
+    // largest sagging moment R1^2 / (2 w_b) where V = 0 (the issue's 1.2 x 0.95 + 1.6 x 2.51 = 5.16 kN·m).
+    const r1 = (wb * l) / 2 - (wo * a * a) / (2 * l);
+    await page.selectOption('[data-testid="case-picker"]', "q:momentMax");
+    await page.selectOption('[data-testid="demo-member-row"]', memberCell("J01", SAMPLE_FILE_SI));
+    await waitFor(page, "J01", "M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on span 1 (factored)");
+    expect(await page.textContent('[data-testid="diagram-caption"]')).toBe("M+ 5.15 kN\u00B7m at 2.06 m: 2.3.1 (2) 1.2D + 1.6L; L on span 1. Factored loads and results (LRFD).");
+    const sagging = await page.$$eval('[data-testid="member-sheet"] [data-role="extreme"][data-kind="max-sagging"]', (els) => els.map((e) => Number(e.getAttribute("data-value"))));
+    expect(sagging).toHaveLength(1);
+    near(sagging[0]!, (r1 * r1) / (2 * wb));
+    near((await drawnReactions(page))[0]!, r1);
+    await shoot(page, "pane-diagrams-governing.png");
+    // R1 min: the balcony alone carries live load. R1(D) = wD (l^2 - a^2) / (2 l), R1(L on the balcony) = -wL a^2 / (2 l).
+    await page.selectOption('[data-testid="case-picker"]', "q:reactionMin:0");
+    await waitFor(page, "J01", "R1 min governs: 2.3.1 (2) 1.2D + 1.6L; L on overhang right (factored)");
+    const r1Min = 1.2 * ((wD * (l * l - a * a)) / (2 * l)) + 1.6 * ((-2.9 * 0.6 * a * a) / (2 * l));
+    near((await drawnReactions(page))[0]!, r1Min);
+    expect(await page.textContent('[data-testid="diagram-caption"]')).toBe(`R1 min ${r1Min.toFixed(2)} kN: 2.3.1 (2) 1.2D + 1.6L; L on overhang right. Factored loads and results (LRFD).`);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
+    await shoot(page, "pane-diagrams-uplift.png");
     expect(errors).toEqual([]);
     await page.close();
   });

@@ -126,19 +126,26 @@ describe.skipIf(missing !== null)("calculation report in Chromium", () => {
     near((await cell('[data-mark="B2"] tr[data-role="moment-max"] td[data-case="D"]')).value, hand.B2.D.mMax, "B2 M D");
   });
 
-  it("prints the governing combination of a beam as solved by hand (ASCE/SEI 7-22 Sec. 2.3.1, reduced live load)", async () => {
+  it("prints the governing values of a beam as solved by hand (ASCE/SEI 7-22 Sec. 2.3.1, reduced live load; one span, so L acts on all of it)", async () => {
     await open(html);
     const b1 = '[data-mark="B1"]';
-    expect(await page.locator(`${b1} th.governing .combo`).textContent()).toBe("2.3.1 (2) 1.2D + 1.6L");
+    for (const role of ["governing-moment-max", "governing-shear-max", "governing-reaction-1-max", "governing-reaction-2-max"]) {
+      expect(await page.locator(`${b1} tr[data-role="${role}"] td.combo`).textContent(), role).toBe("2.3.1 (2) 1.2D + 1.6L");
+      expect(await page.locator(`${b1} tr[data-role="${role}"] td.pattern`).textContent(), role).toBe("L on all segments");
+    }
     // 1.2D + 1.6L with the zone's live load (reducible) times L/Lo and the strip (not reducible) as is.
     const patches = [
       { w: 1.2 * hand.b1.wD + 1.6 * hand.b1.wL * hand.B1.llr, a: 0, b: 24 },
       { w: 1.6 * hand.b1.strip, a: 0, b: 12 },
     ];
     const r = handReactions(24, [], patches);
-    near((await cell(`${b1} tr[data-role="reaction-1"] td[data-case="governing"]`)).value, r.left, "B1 factored R1");
-    near((await cell(`${b1} tr[data-role="reaction-2"] td[data-case="governing"]`)).value, r.right, "B1 factored R2");
-    near((await cell(`${b1} tr[data-role="moment-max"] td[data-case="governing"]`)).value, handMaxMoment(24, [], patches), "B1 factored M");
+    near((await cell(`${b1} tr[data-role="governing-reaction-1-max"] td[data-case="governing"]`)).value, r.left, "B1 factored R1");
+    near((await cell(`${b1} tr[data-role="governing-reaction-2-max"] td[data-case="governing"]`)).value, r.right, "B1 factored R2");
+    near((await cell(`${b1} tr[data-role="governing-shear-max"] td[data-case="governing"]`)).value, Math.max(r.left, r.right), "B1 factored |V|");
+    near((await cell(`${b1} tr[data-role="governing-moment-max"] td[data-case="governing"]`)).value, handMaxMoment(24, [], patches), "B1 factored M");
+    // The least reactions: 0.9D (combination 5 with no wind load), D alone being on the whole span.
+    expect(await page.locator(`${b1} tr[data-role="governing-reaction-1-min"] td.combo`).textContent()).toBe("2.3.1 (5) 0.9D");
+    near((await cell(`${b1} tr[data-role="governing-reaction-1-min"] td[data-case="governing"]`)).value, 0.9 * hand.B1.D.left, "B1 least R1");
   });
 
   it("gives a girder the reactions it receives, with their marks and positions", async () => {

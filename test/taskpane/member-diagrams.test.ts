@@ -15,7 +15,9 @@ import { renderLoadPath, renderMemberSheet } from "../../src/drawings";
 import { solveDrawing } from "../../src/drawings/model";
 import { allElements, parseSvg } from "../drawings/svg-query";
 import { loadPathOf, upstreamMarks } from "../../src/taskpane/load-path-of";
-import { caseChoicesOf, choiceOnMember, combinationChoicesOf, governingChoice, largestMoment, memberDrawingOf, type CaseChoice } from "../../src/taskpane/member-drawing";
+import { caseChoicesOf, governingDrawingOf, memberDrawingOf, pickKey, pickOf, type CaseChoice } from "../../src/taskpane/member-drawing";
+import { governingBeamModel, governingOf, memberGoverning, quantitiesOf } from "../../src/engine/takedown/member-envelope";
+import { solveBeam } from "../../src/engine/beam";
 import { memberAt, selectionIndexOf } from "../../src/taskpane/selection-map";
 import { MAX_READS, readPlan, rowRuns, TakedownCells } from "../../src/taskpane/takedown-cells";
 import type { MemoryWorkbookPort } from "../../src/workbook/memory-port";
@@ -50,7 +52,7 @@ beforeAll(async () => {
   cells = new TakedownCells(counting, built);
 });
 
-const choice = (label: string): CaseChoice => [...caseChoicesOf(built.model.cases), ...combinationChoicesOf(built.model.cases)].find((c) => c.label === label)!;
+const choice = (label: string): CaseChoice => caseChoicesOf(built.model.cases).find((c) => c.label === label)!;
 
 function reactionsOf(mark: string, c: CaseChoice): number[] {
   const drawing = memberDrawingOf(cells.loadsOf(mark)!, c, "US")!;
@@ -86,20 +88,27 @@ describe("the member drawing", () => {
     const drawing = memberDrawingOf(cells.loadsOf("B1")!, choice("D"), "US")!;
     expect(drawing.supports.map((s) => s.label)).toEqual(["G1 @ 10 ft", "G2 @ 10 ft"]);
     expect(drawing.lines.map((x) => x.label)).toEqual(["OFF + wD"]);
-    near(largestMoment(drawing), hand.B1.D.mMax);
+    const solved = solveDrawing(drawing);
+    if (!solved.ok) throw new Error(solved.error.message);
+    near(solved.value.maxSagging().value, hand.B1.D.mMax);
   });
 
-  it("factors a combination's cases and reduces the reducible live load by the member's factor (ASCE/SEI 7-22 Sec. 2.3.1, 4.7)", async () => {
+  it("draws the case that governs M+ with the combination's factors and the member's live load reduction (ASCE/SEI 7-22 Sec. 2.3.1, 4.7)", async () => {
     await cells.ensure(["B1"]);
     const b1 = cells.loadsOf("B1")!;
-    const combo = choiceOnMember(choice("1.2D + 1.6L"), b1);
-    const drawing = memberDrawingOf(b1, combo, "US")!;
-    expect(drawing.caseLabel).toBe(`1.2D + 1.6L, L \u00D7 ${hand.B1.llr.toFixed(2)}`);
-    const r = reactionsOf("B1", combo);
+    const shown = governingDrawingOf(b1, { kind: "momentMax" }, "US");
+    if (shown === null || typeof shown === "string") throw new Error(String(shown));
+    // One span: the live load pattern is the whole beam.
+    expect(shown.drawing.caseLabel).toBe(`M+ governs: 2.3.1 (2) 1.2D + 1.6L; L on all segments (factored), L \u00D7 ${hand.B1.llr.toFixed(2)}`);
+    expect(shown.caption).toMatch(/^M\+ [\d.]+ kip-ft at [\d.]+ ft: 2\.3\.1 \(2\) 1\.2D \+ 1\.6L; L on all segments\. Factored loads and results \(LRFD\), L \u00D7 0\.\d\d\.$/);
+    const solved = solveDrawing(shown.drawing);
+    if (!solved.ok) throw new Error(solved.error.message);
+    const r = solved.value.reactions;
     // The zone's live load is reducible; the Loads-table strip is not (framing.ts).
     const zoneL = (hand.b1.wL * hand.span) / 2;
     near(r[0], 1.2 * hand.B1.D.left + 1.6 * (hand.B1.L.left - (1 - hand.B1.llr) * zoneL));
     near(r[1], 1.2 * hand.B1.D.right + 1.6 * (hand.B1.L.right - (1 - hand.B1.llr) * zoneL));
+    near(solved.value.maxSagging().value, shown.value);
   });
 
   it("draws the reactions a girder receives at their positions, from the members they come from", async () => {
@@ -116,30 +125,41 @@ describe("the member drawing", () => {
     near(r[1], hand.G1.D.right);
   });
 
-  it("has no bending drawing for a column, and picks the combination with the largest moment", async () => {
-    await cells.ensure(["C1", "B2"]);
+  it("has no bending drawing for a column; the picker's keys read back", async () => {
+    await cells.ensure(["C1"]);
     expect(memberDrawingOf(cells.loadsOf("C1")!, choice("D"), "US")).toBeNull();
-    const combos = combinationChoicesOf(built.model.cases);
-    const b2 = cells.loadsOf("B2")!;
-    const best = governingChoice(b2, combos, "US")!;
-    const moments = combos.map((c) => largestMoment(memberDrawingOf(b2, c, "US")!));
-    expect(largestMoment(memberDrawingOf(b2, best, "US")!)).toBe(Math.max(...moments));
+    expect(governingDrawingOf(cells.loadsOf("C1")!, { kind: "momentMax" }, "US")).toBeNull();
+    for (const q of quantitiesOf(3)) expect(pickOf(pickKey({ kind: "governing", quantity: q }), ["D", "L"])).toEqual({ kind: "governing", quantity: q });
+    expect(pickOf("L", ["D", "L"])).toEqual({ kind: "case", loadCase: "L" });
+    expect(pickOf("S", ["D", "L"])).toBeNull();
   });
-});
 
-describe("the combination list", () => {
-  it("keeps the gravity combinations of the cases present, without wind or seismic rows (ASCE/SEI 7-22 Sec. 2.3.1, recalled from memory)", () => {
-    expect(combinationChoicesOf(["D", "L"]).map((c) => c.label)).toEqual(["1.4D", "1.2D + 1.6L", "1.2D + L"]);
-    expect(combinationChoicesOf(["D", "L", "Lr", "S"]).map((c) => c.label)).toEqual([
-      "1.4D",
-      "1.2D + 1.6L + 0.5Lr",
-      "1.2D + 1.6L + 0.3S",
-      "1.2D + 1.6L",
-      "1.2D + 1.6Lr + L",
-      "1.2D + 1.0S + L",
-      "1.2D + L",
-    ]);
-    expect(combinationChoicesOf(["D", "L"])[1]!.factors).toEqual({ D: 1.2, L: 1.6 });
+  it("draws every governing case of a girder and a beam so that V and M at the critical points are the engine's governing model's", async () => {
+    await cells.ensure(["G1", "B1", "B2"]);
+    for (const mark of ["G1", "B1", "B2"]) {
+      const loads = cells.loadsOf(mark)!;
+      const g = memberGoverning(loads);
+      if (g === null || !g.ok) throw new Error(`no governing values for ${mark}`);
+      for (const q of quantitiesOf(loads.supports.length)) {
+        const shown = governingDrawingOf(loads, q, "US");
+        if (shown === null || typeof shown === "string") throw new Error(String(shown));
+        const v = governingOf(g.value.envelope, q)!;
+        const model = governingBeamModel(g.value, v);
+        if (!model.ok) throw new Error(model.error.message);
+        const ref = solveBeam(model.value);
+        const drawn = solveDrawing(shown.drawing);
+        if (!ref.ok || !drawn.ok) throw new Error("not solved");
+        ref.value.reactions.forEach((r, k) => near(drawn.value.reactions[k], r));
+        // Critical points: the supports, the ends, where the loads act and where the governing value occurs.
+        const xs = [0, 24, v.x, ...loads.loads.flatMap((l) => [l.start ?? 0, l.end ?? l.start ?? 0])];
+        for (const x of xs) {
+          near(drawn.value.momentAt(x), ref.value.momentAt(x));
+          near(drawn.value.shearAt(x, "left"), ref.value.shearAt(x, "left"));
+          near(drawn.value.shearAt(x, "right"), ref.value.shearAt(x, "right"));
+        }
+        near(shown.value, v.value);
+      }
+    }
   });
 });
 

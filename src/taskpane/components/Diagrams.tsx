@@ -1,15 +1,20 @@
 /**
  * Member diagrams after a build: the free-body, shear and moment diagrams and the load path of
  * the member whose row is selected in the Members table or on the takedown sheet (following the
- * selection as it moves, where the host reports it), or of the member picked in the list; for a
- * load case or a load combination. The SVG shown is the renderers' output only (they escape
- * every text they draw); no cell text is ever inserted as markup.
+ * selection as it moves, where the host reports it), or of the member picked in the list; either
+ * one load case unfactored (with the load path under that case), or the factored case that governs
+ * a quantity the user picks (M+, M-, |V|, a reaction's max or min): its combination and live load
+ * pattern, drawn with the factored loads and captioned with the combination, pattern and units.
+ * One figure never mixes factored and unfactored values: the load path (unfactored, by case) is
+ * shown with a case only. The SVG shown is the renderers' output only (they escape every text
+ * they draw); no cell text is ever inserted as markup.
  */
 import * as React from "react";
 import { Button, Field, Select, Text, makeStyles, tokens } from "@fluentui/react-components";
 import { renderLoadPath, renderMemberSheet } from "../../drawings";
 import { loadPathOf, upstreamMarks } from "../load-path-of";
-import { caseChoicesOf, choiceLabel, choiceOnMember, combinationChoicesOf, governingChoice, memberDrawingOf, type CaseChoice } from "../member-drawing";
+import { caseChoicesOf, governingDrawingOf, memberDrawingOf, pickKey, pickOf, type DiagramPick } from "../member-drawing";
+import { quantitiesOf, quantityName } from "../../engine/takedown/member-envelope";
 import { base64Of, copyDrawing, pngOf, stackSvgs } from "../picture";
 import { memberAt, selectionIndexOf } from "../selection-map";
 import type { PaneSession } from "../session";
@@ -29,8 +34,8 @@ const useStyles = makeStyles({
 
 /** Members upstream whose loads are read for the load path (the drawing shows at most 40 rows a side). */
 const UPSTREAM_LIMIT = 60;
-/** Key of the selector's first entry: the member's governing combination. */
-const GOVERNING = "governing";
+/** The selector's first entry: the case that governs M+. */
+const DEFAULT_PICK: DiagramPick = { kind: "governing", quantity: { kind: "momentMax" } };
 /** Pixels per drawing unit of an inserted picture, and its width on the sheet in points. */
 const PICTURE_SCALE = 2;
 const PICTURE_WIDTH_PT = 360;
@@ -47,8 +52,12 @@ interface Shown {
   readonly label: string;
   /** Renderer output (escaped SVG), or null for a member that does not bend. */
   readonly memberSvg: string | null;
-  readonly pathSvg: string;
-  readonly governing: CaseChoice | null;
+  /** Load path under the case shown (null for a factored case: its values are not those of one case). */
+  readonly pathSvg: string | null;
+  /** What the figure shows, in words: the case, or the governing value with its combination, pattern and units. */
+  readonly caption: string;
+  /** Marks of what holds the member up, in order along it (for the reaction entries of the picker). */
+  readonly supports: readonly string[];
 }
 
 function errorText(e: unknown): string {
@@ -70,9 +79,8 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
   const index = React.useMemo(() => selectionIndexOf(built), [built]);
   const members = React.useMemo(() => membersOf(built), [built]);
   const cases = React.useMemo(() => caseChoicesOf(built.model.cases), [built]);
-  const combos = React.useMemo(() => combinationChoicesOf(built.model.cases), [built]);
   const [mark, setMark] = React.useState<string>("");
-  const [choiceKey, setChoiceKey] = React.useState<string>(GOVERNING);
+  const [choiceKey, setChoiceKey] = React.useState<string>(pickKey(DEFAULT_PICK));
   const [shown, setShown] = React.useState<Shown | null>(null);
   const [status, setStatus] = React.useState<string>("");
   const [error, setError] = React.useState<string | null>(null);
@@ -123,23 +131,39 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
         if (id !== request.current) return;
         const loads = cells.loadsOf(mark);
         if (!loads) throw new Error(`${mark} is not in the takedown.`);
-        const governing = governingChoice(loads, combos, json.units);
-        const picked = choiceKey === GOVERNING ? governing ?? cases[0]! : [...cases, ...combos].find((c) => c.key === choiceKey) ?? cases[0]!;
-        const choice = choiceOnMember(picked, loads);
-        const drawing = memberDrawingOf(loads, choice, json.units);
+        const asked = pickOf(choiceKey, built.model.cases) ?? DEFAULT_PICK;
+        // A reaction of a support this member does not have (picked on another member) falls back to M+.
+        const pick = asked.kind === "governing" && "support" in asked.quantity && asked.quantity.support >= loads.supports.length ? DEFAULT_PICK : asked;
         const source = { model: built.model, deliveries: cells.path, json, loadsOf: (m: string) => cells.loadsOf(m) };
+        const supports = loads.supports.map((x) => x.mark);
+        if (pick.kind === "governing") {
+          const g = governingDrawingOf(loads, pick.quantity, json.units);
+          if (typeof g === "string") throw new Error(g);
+          if (g !== null) {
+            setShown({ mark, label: g.drawing.caseLabel, memberSvg: renderMemberSheet(g.drawing), pathSvg: null, caption: g.caption, supports });
+            return;
+          }
+        }
+        // A case unfactored; a member that does not bend shows its load path under the first case when a governing value was asked.
+        const choice = pick.kind === "case" ? cases.find((c) => c.key === pick.loadCase) ?? cases[0]! : cases[0]!;
+        const drawing = memberDrawingOf(loads, choice, json.units);
+        const caption =
+          pick.kind === "case"
+            ? `Case ${choice.label}, unfactored (live load not reduced).`
+            : `${mark} carries axial load only: governing values are given for beams, girders and joists. Case ${choice.label} shown, unfactored.`;
         setShown({
           mark,
-          label: choiceLabel(loads, choice),
+          label: choice.label,
           memberSvg: drawing ? renderMemberSheet(drawing) : null,
-          pathSvg: renderLoadPath(loadPathOf(source, loads, picked)),
-          governing: governing ? choiceOnMember(governing, loads) : null,
+          pathSvg: renderLoadPath(loadPathOf(source, loads, choice)),
+          caption,
+          supports,
         });
       } catch (e) {
         if (id === request.current) setError(`Could not draw ${mark}: ${errorText(e)}`);
       }
     })();
-  }, [mark, choiceKey, cells, built, json, cases, combos]);
+  }, [mark, choiceKey, cells, built, json, cases]);
 
   const showSelected = async (): Promise<void> => {
     try {
@@ -151,7 +175,10 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
     }
   };
 
-  const picture = (): string | null => (shown ? stackSvgs([...(shown.memberSvg ? [shown.memberSvg] : []), shown.pathSvg]) : null);
+  const picture = (): string | null => {
+    const svgs = shown ? [...(shown.memberSvg ? [shown.memberSvg] : []), ...(shown.pathSvg ? [shown.pathSvg] : [])] : [];
+    return svgs.length > 0 ? stackSvgs(svgs) : null;
+  };
 
   const copy = async (): Promise<void> => {
     const svg = picture();
@@ -190,7 +217,9 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
     }
   };
 
-  const governingText = shown?.governing ? ` (${shown.governing.label})` : "";
+  // Reaction entries for the member shown (two supports until one is drawn).
+  const supportMarks = shown?.supports ?? [];
+  const quantities = quantitiesOf(Math.max(2, supportMarks.length));
   return (
     <div className={styles.stack} data-testid="diagrams">
       <Text size={200}>
@@ -213,18 +242,24 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
           ))}
         </Select>
       </Field>
-      <Field className={styles.field} label="Load case or combination" hint="ASCE/SEI 7-22 Sec. 2.3.1 gravity combinations (LRFD); L reduced by the member’s LLR factor.">
+      <Field
+        className={styles.field}
+        label="Show"
+        hint="Governing: the factored case (ASCE/SEI 7-22 Sec. 2.3.1, LRFD; L and Lr span by span, Sec. 4.3.3; L reduced by the member’s LLR factor) that gives the quantity. Unfactored: one load case as computed."
+      >
         <Select className={styles.select} value={choiceKey} onChange={(_, d) => setChoiceKey(d.value)} data-testid="case-picker">
-          <option value={GOVERNING}>Governing combination{governingText}</option>
-          <optgroup label="Load cases">
-            {cases.map((c) => (
-              <option key={c.key} value={c.key}>
-                {c.label}
-              </option>
-            ))}
+          <optgroup label="Governing case (factored)">
+            {quantities.map((q) => {
+              const key = pickKey({ kind: "governing", quantity: q });
+              return (
+                <option key={key} value={key}>
+                  {"support" in q && supportMarks[q.support] ? `${quantityName(q)} (on ${supportMarks[q.support]})` : quantityName(q)}
+                </option>
+              );
+            })}
           </optgroup>
-          <optgroup label="Combinations">
-            {combos.map((c) => (
+          <optgroup label="Unfactored by case">
+            {cases.map((c) => (
               <option key={c.key} value={c.key}>
                 {c.label}
               </option>
@@ -256,6 +291,9 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
               </Button>
             ) : null}
           </div>
+          <Text size={200} data-testid="diagram-caption" data-mark={shown.mark}>
+            {shown.caption}
+          </Text>
           {shown.memberSvg ? (
             // Renderer output only: every text in it is escaped by the renderer.
             <figure className={styles.figure} data-testid="member-sheet" data-mark={shown.mark} data-case={shown.label} dangerouslySetInnerHTML={{ __html: shown.memberSvg }} />
@@ -264,7 +302,13 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
               {shown.mark} carries axial load only: no shear or moment diagram. Its load path is below.
             </Text>
           )}
-          <figure className={styles.figure} data-testid="load-path" data-mark={shown.mark} dangerouslySetInnerHTML={{ __html: shown.pathSvg }} />
+          {shown.pathSvg ? (
+            <figure className={styles.figure} data-testid="load-path" data-mark={shown.mark} dangerouslySetInnerHTML={{ __html: shown.pathSvg }} />
+          ) : (
+            <Text size={200} className={styles.note} data-testid="no-load-path">
+              The load path is drawn per load case, unfactored: pick a case under “Unfactored by case”.
+            </Text>
+          )}
         </>
       ) : null}
     </div>
