@@ -302,7 +302,8 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
       ...(run.native ? { native: true } : {}),
     };
     const { members: _m, loads: _l, bearings: _b, ...rest } = options;
-    const names = { framing, ...(decks !== undefined ? { decks } : {}), ...(grids !== undefined ? { grids } : {}), ...(levels !== undefined ? { levels } : {}) };
+    const userLoads = tableName(workbook, used.tables?.loads, "Loads");
+    const names = { framing, ...(decks !== undefined ? { decks } : {}), ...(grids !== undefined ? { grids } : {}), ...(levels !== undefined ? { levels } : {}), ...(userLoads !== undefined ? { loads: userLoads } : {}) };
     const planned = await buildPlanTakedown(port, names, rest);
     return { result: planned.result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}), ...(saved !== undefined ? { saved } : {}), plan: { names, derivation: planned.derivation } };
   }

@@ -6,8 +6,9 @@
  * tables. Framing problems join the takedown's problems with their cells; the JSON gains `derived`.
  */
 import { derivePlan, type Derivation, type PlanTables } from "../engine/framing";
-import { derivedJson, PLAN_SHEETS, planTableRows, type DerivedJson } from "../engine/framing/tables-out";
-import type { Problem, TableData } from "../engine/takedown/types";
+import { derivedJson, PLAN_SHEETS, planTableRows, userLoadRows, type DerivedJson } from "../engine/framing/tables-out";
+import type { CellValue, Problem, TableData } from "../engine/takedown/types";
+import { LOADS_SPEC, matchTable } from "../engine/takedown/tables";
 import { ForeignSheetError, GENERATED_MARKER, type WorkbookPort } from "./port";
 import { buildTakedown } from "./takedown-build";
 import type { TakedownBuildResult, TakedownOptions } from "./takedown-api";
@@ -18,6 +19,8 @@ export interface PlanTableNames {
   readonly levels?: string;
   readonly framing: string;
   readonly decks?: string;
+  /** The user's Loads table: its rows join the derived ones on `Plan loads` (loads the plan cannot give). */
+  readonly loads?: string;
 }
 
 /** What the derivation step gives the takedown. */
@@ -51,12 +54,19 @@ export async function writePlanSheets(port: WorkbookPort, names: PlanTableNames,
   const grids = await read(names.grids, "Grids");
   const levels = await read(names.levels, "Levels");
   const decks = await read(names.decks, "Decks");
+  const userLoads = await read(names.loads, "Loads");
   if (framing === undefined) return { derivation: null, problems, sheets: PLAN_SHEETS };
   const tables: PlanTables = { framing, ...(grids ? { grids } : {}), ...(levels ? { levels } : {}), ...(decks ? { decks } : {}) };
   const d = derivePlan(tables, options.units, options.tolerance);
   problems.push(...d.problems);
-  const rows = planTableRows(d, options.units);
-  const from = [`Framing: ${names.framing}`, ...(names.decks ? [`Decks: ${names.decks}`] : []), ...(names.grids ? [`Grids: ${names.grids}`] : []), ...(names.levels ? [`Levels: ${names.levels}`] : [])].join(", ");
+  let extra: CellValue[][] = [];
+  if (userLoads) {
+    const m = matchTable(LOADS_SPEC, userLoads, options.units);
+    problems.push(...m.problems);
+    extra = userLoadRows(m.table.data, m.table.columns, m.table.rows);
+  }
+  const rows = planTableRows(d, options.units, extra);
+  const from = [`Framing: ${names.framing}`, ...(names.decks ? [`Decks: ${names.decks}`] : []), ...(names.grids ? [`Grids: ${names.grids}`] : []), ...(names.levels ? [`Levels: ${names.levels}`] : []), ...(names.loads ? [`Loads: ${names.loads} (its rows copied)`] : [])].join(", ");
   const note = `Values derived from the framing plan (${from}; snapping tolerance ${d.tolerance} ${options.units === "SI" ? "m" : "ft"}). Edit the plan tables, not this sheet: a rebuild replaces it. Results need a qualified engineer's review; local codes govern.`;
   const what: Record<keyof typeof PLAN_SHEETS, string> = { members: "members", loads: "tributary loads", bearings: "bearings of members continuous over what they cross" };
   try {

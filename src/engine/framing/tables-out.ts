@@ -13,6 +13,19 @@ import type { Derivation, DerivedMember } from "./types";
 /** Names of the generated plan sheets. */
 export const PLAN_SHEETS = { members: "Plan members", loads: "Plan loads", bearings: "Plan bearings" } as const;
 
+/**
+ * The user's Loads rows in the order of the `Plan loads` columns (Mark, Kind, Zone or case,
+ * Magnitude, Width, From, To, End width, End magnitude, Derived from), so that loads the plan
+ * cannot give (a stair's point loads, a drift) join the derived ones.
+ * @param data - the Loads table as read
+ * @param columns - where each of its columns is (indices into its rows), from the header matching
+ * @param rows - indices of its body rows
+ */
+export function userLoadRows(data: { readonly sheet: string; readonly top: number; readonly values: readonly (readonly CellValue[])[] }, columns: Readonly<Partial<Record<string, number>>>, rows: readonly number[]): CellValue[][] {
+  const keys = ["mark", "kind", "zoneOrCase", "magnitude", "width", "from", "to", "endWidth", "endMagnitude"];
+  return rows.map((r) => [...keys.map((k) => (columns[k] === undefined ? null : (data.values[r]![columns[k]!] ?? null))), `${data.sheet} row ${data.top + r + 1}`]);
+}
+
 /** The rows of the three generated tables, header row first. */
 export interface PlanTableRows {
   readonly members: CellValue[][];
@@ -71,7 +84,7 @@ function memberRow(m: DerivedMember): CellValue[] {
  * @param d - the derivation
  * @param units - unit system of the plan (header units)
  */
-export function planTableRows(d: Derivation, units: UnitSystem): PlanTableRows {
+export function planTableRows(d: Derivation, units: UnitSystem, extraLoads: readonly CellValue[][] = []): PlanTableRows {
   const u = UNITS[units];
   const lineCols = PASSED_THROUGH.slice(1).map((k) => `${k} (${u.line})`);
   const members: CellValue[][] = [
@@ -95,12 +108,13 @@ export function planTableRows(d: Derivation, units: UnitSystem): PlanTableRows {
     ],
     ...d.members.map(memberRow),
   ];
-  const loads: CellValue[][] = [["Mark", "Kind", "Zone or case", "Magnitude", `Width (${u.length})`, `From (${u.length})`, `To (${u.length})`, `End width (${u.length})`, "Deck area"]];
+  const loads: CellValue[][] = [["Mark", "Kind", "Zone or case", "Magnitude", `Width (${u.length})`, `From (${u.length})`, `To (${u.length})`, `End width (${u.length})`, "End magnitude", "Derived from"]];
   for (const m of d.members) {
     for (const p of m.tributary) {
-      loads.push([m.mark, "area", p.zone, null, clean(p.width), clean(p.from), clean(p.to), varies(p.width, p.endWidth) ? clean(p.endWidth) : null, p.area]);
+      loads.push([m.mark, "area", p.zone, null, clean(p.width), clean(p.from), clean(p.to), varies(p.width, p.endWidth) ? clean(p.endWidth) : null, null, `deck ${p.area}`]);
     }
   }
+  loads.push(...extraLoads);
   const bearings: CellValue[][] = [["Mark", "Support", `At (${u.length})`, `Support at (${u.length})`], ...d.bearings.map((b) => [b.mark, b.support, clean(b.at), b.supportAt === null ? null : clean(b.supportAt)])];
   return { members, loads, bearings };
 }
