@@ -119,3 +119,27 @@ describe("framing problems in a takedown from a plan", () => {
     expect(r.err.join("\n")).toMatch(/X-1/);
   });
 });
+
+describe("plan options", () => {
+  it("--framing builds from the plan even beside a Members table; without it the Members table is used", async () => {
+    const path = join(dir, "both.xlsx");
+    const typedMembers = (await import("../../sample-workbooks/make-buildings")).steelOffice().find((t) => t.name === "Members")!;
+    await writePlanWorkbook(path, [...planOffice(), { ...typedMembers, rows: typedMembers.rows.slice(0, 3) }], "x");
+    const withPlan = await run(path, "--framing", "Framing", "--json", join(dir, "both-plan.json"));
+    expect(withPlan.status, withPlan.err.join("\n")).toBe(0);
+    expect(json(join(dir, "both-plan.json")).derived).toBeDefined();
+    const typedOnly = await run(path, "--json", join(dir, "both-typed.json"));
+    expect(json(join(dir, "both-typed.json")).derived).toBeUndefined();
+    expect(typedOnly.status).toBe(1); // three typed rows whose supports are missing
+  });
+
+  it("--save-mapping with a plan, and export with --framing, are refused with exit 2", async () => {
+    const a = await run(PLAN, "-o", join(dir, "x.xlsx"), "--save-mapping");
+    expect(a.status).toBe(2);
+    expect(a.err.join("\n")).toMatch(/--save-mapping/);
+    const out: string[] = [];
+    const io: CliIO = { out: (l) => void out.push(l), err: (l) => void out.push(l) };
+    expect(await main(["export", PLAN, "--framing", "Framing", "-o", join(dir, "y.xlsx")], io)).toBe(2);
+    expect(out.join("\n")).toMatch(/--framing: export hands off the takedown sheets/);
+  });
+});
