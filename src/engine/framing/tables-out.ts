@@ -67,7 +67,8 @@ function memberRow(m: DerivedMember): CellValue[] {
     null,
     null,
     m.startSupport,
-    spanning ? n(m.startAt) : null,
+    // a column standing on a beam of the level below (a transfer) gives its position along it
+    m.type === "foundation" ? null : n(m.startAt),
     spanning ? m.endSupport : null,
     spanning ? n(m.endAt) : null,
     kll ?? null,
@@ -138,7 +139,7 @@ export function derivedJson(d: Derivation): Record<string, DerivedJson> {
   for (const m of d.members) {
     const spanning = m.type !== "column" && m.type !== "foundation";
     const supports: DerivedJson["supports"][number][] = [];
-    if (m.startSupport !== null) supports.push({ support: m.startSupport, at: 0, supportAt: spanning ? m.startAt : null });
+    if (m.startSupport !== null) supports.push({ support: m.startSupport, at: 0, supportAt: m.startAt });
     if (spanning) {
       for (const b of d.bearings.filter((x) => x.mark === m.mark).sort((a, b2) => a.at - b2.at)) supports.push({ support: b.support, at: b.at, supportAt: b.supportAt });
       if (m.endSupport !== null) supports.push({ support: m.endSupport, at: m.span ?? 0, supportAt: m.endAt });
