@@ -143,3 +143,17 @@ describe("plan options", () => {
     expect(out.join("\n")).toMatch(/--framing: export hands off the takedown sheets/);
   });
 });
+
+describe("hand-off version of a takedown from the plan", () => {
+  it("--native: every result a live classic formula (the derived widths are uniform), equal to the add-in version to 1e-9", async () => {
+    const a = await run(PLAN, "--json", join(dir, "addin.json"));
+    const b = await run(PLAN, "--native", "--json", join(dir, "native.json"));
+    expect(a.status).toBe(0);
+    expect(b.status).toBe(0);
+    expect(b.out.join("\n")).toMatch(/every result is a live formula in classic spreadsheet functions/);
+    const x = json(join(dir, "addin.json"));
+    const y = json(join(dir, "native.json"));
+    const pick = (j: ReturnType<typeof json>) => ({ members: j.members, columns: j.columns, foundations: j.foundations, balance: j.balance });
+    expect(compareJson(pick(x), pick(y), 1e-9, 1e-9)).toEqual([]);
+  });
+});
