@@ -90,10 +90,12 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const zones = await port.readTable(options.zones);
   const members = await port.readTable(options.members);
   const loads = options.loads ? await port.readTable(options.loads) : undefined;
+  const bearings = options.bearings ? await port.readTable(options.bearings) : undefined;
   const planned = planTakedown({
     zones,
     members,
     ...(loads ? { loads } : {}),
+    ...(bearings ? { bearings } : {}),
     units: options.units,
     ...(options.mapping ? { mapping: options.mapping } : {}),
     ...(options.headerRows ? { headerRows: options.headerRows } : {}),
@@ -106,7 +108,9 @@ export async function collectTakedown(port: WorkbookPort, options: TakedownOptio
   const area = await port.readTable(`${sheetRef(sheet)}!A1:${cellAddress(Math.max(0, plan.cells.length - 1), plan.layout.width - 1)}`);
   const read = (row: number, col: number): CellValue | undefined => area.values[row - area.top]?.[col - area.left];
   const again = readResults(plan, model, read, json.problems);
-  const diff = difference(again, json, "results");
+  // a takedown from the framing plan also carries what was derived, which the sheet does not hold
+  const { derived: _derived, ...built } = json;
+  const diff = difference(again, built, "results");
   if (diff !== null) throw new Error(`the takedown sheet read back for the report disagrees with the build (${diff}).`);
   const path = checkPath(model);
   const memberLoads = loadsOfMembers({ model, plan, deliveries: path.deliveries, placedLoads: path.placedLoads, read });

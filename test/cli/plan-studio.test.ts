@@ -121,3 +121,15 @@ describe("loadpath takedown of the plan studio (sample d)", () => {
     expect(j.derived["C1A-2"]!.supports).toEqual([{ support: "F-C1A-2", at: 0, supportAt: null }]);
   });
 });
+
+describe("loadpath report of the plan studio", () => {
+  it("reports members of a takedown from the plan (a skewed-deck joist, the continuous roof beam) with exit 0", async () => {
+    const out: string[] = [];
+    const io: CliIO = { out: (l) => void out.push(l), err: (l) => void out.push(l) };
+    const html = join(dir, "studio.html");
+    expect(await main(["report", STUDIO, "-o", html, "--only", "J1,RBB"], io), out.join("\n")).toBe(0);
+    const text = readFileSync(html, "utf8");
+    expect(text).toContain("J1");
+    expect(text).toContain("RBB");
+  });
+});
