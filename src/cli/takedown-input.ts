@@ -12,6 +12,9 @@ import { buildTakedown } from "../workbook/takedown-build";
 import type { ColumnMapping, HeaderRows, TakedownBuildResult, TakedownOptions, UnitSystem } from "../workbook/takedown-api";
 import { dateCells, engineSheets, type XlsxWorkbook } from "../workbook/xlsx";
 import { readInputWorkbook } from "./shared";
+import { buildPlanTakedown, type PlanTableNames } from "../workbook/plan-build";
+import { PLAN_SHEETS } from "../engine/framing/tables-out";
+import type { Derivation } from "../engine/framing";
 import { unitFits } from "../engine/takedown/units";
 import { HEADER_SEARCH_ROWS } from "../engine/takedown/tables";
 import { MATCHING_TABLES, overMatching, readSavedMatching, SETTINGS_SHEET, writeSavedMatching, type SavedMatching } from "../workbook/saved-matching";
@@ -25,6 +28,11 @@ export interface TakedownRun {
   readonly loads?: string;
   /** Bearings table (interior supports of continuous members). */
   readonly bearings?: string;
+  /** Plan tables: a takedown from the framing plan (used when given, or when the workbook has Framing and Decks and no Members). */
+  readonly framing?: string;
+  readonly decks?: string;
+  readonly grids?: string;
+  readonly levels?: string;
   readonly mapping?: ColumnMapping;
   /** Header rows given with `--header-row` (1-based sheet rows). */
   readonly headerRows?: HeaderRows;
@@ -46,6 +54,8 @@ export interface TakedownFileResult {
   readonly headerUnits?: UnitSystem;
   /** The workbook's saved matching (settings sheet), when it has one. */
   readonly saved?: SavedMatching;
+  /** A takedown built from the framing plan: the plan tables read and the derivation. */
+  readonly plan?: { readonly names: PlanTableNames; readonly derivation: Derivation | null };
 }
 
 /**
@@ -98,6 +108,10 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
     members: { type: "string" },
     loads: { type: "string" },
     bearings: { type: "string" },
+    framing: { type: "string" },
+    decks: { type: "string" },
+    grids: { type: "string" },
+    levels: { type: "string" },
     map: { type: "string", multiple: true },
     "header-row": { type: "string", multiple: true },
     sheet: { type: "string" },
@@ -110,6 +124,12 @@ export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads, --bearings <n
                  Excel table, sheet (its used range) or Sheet!A1:H20 of each table;
                  default: the table or sheet named Zones, Members and (if present) Loads
                  and Bearings
+  --framing, --decks, --grids, --levels <name>
+                 the framing plan's tables: the takedown is built from the plan (members,
+                 supports and tributary loads derived onto the generated sheets "Plan
+                 members", "Plan loads" and "Plan bearings") when --framing is given, or
+                 when the workbook has Framing and Decks and no Members; default: the
+                 tables or sheets so named
   --map <table>.<Column>=<your header | Group/Header | column letter>
                  a column whose header differs, e.g. --map members.Trib="Trib width",
                  --map "members.End at=End/Location" (header under the group row's
@@ -170,6 +190,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
   const members = stringOf(values.members);
   const loads = stringOf(values.loads);
   const bearings = stringOf(values.bearings);
+  const plan = Object.fromEntries((["framing", "decks", "grids", "levels"] as const).flatMap((k) => (stringOf(values[k]) !== undefined ? [[k, stringOf(values[k])!]] : [])));
   return {
     run: {
       ...(unitsText !== undefined ? { units: unitsText } : {}),
@@ -179,6 +200,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
       ...(members !== undefined ? { members } : {}),
       ...(loads !== undefined ? { loads } : {}),
       ...(bearings !== undefined ? { bearings } : {}),
+      ...plan,
       ...(sheet !== undefined ? { sheet } : {}),
       replace: values.replace === true,
     },
@@ -256,6 +278,35 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
   const used = overMatching(saved ?? {}, givenMatching(run));
   const zones = tableName(workbook, used.tables?.zones, "Zones");
   const members = tableName(workbook, used.tables?.members, "Members");
+  const framing = tableName(workbook, run.framing, "Framing");
+  const decks = tableName(workbook, run.decks, "Decks");
+  if (run.framing !== undefined || (members === undefined && framing !== undefined && decks !== undefined)) {
+    if (zones === undefined) throw new Error(`${input}: no Zones table or sheet; name it with --zones.`);
+    if (framing === undefined) throw new Error(`${input}: no Framing table or sheet; name it with --framing.`);
+    if (run.saveMapping) throw new Error(`--save-mapping saves the member tables' matching; a takedown from the framing plan has none to save.`);
+    const grids = tableName(workbook, run.grids, "Grids");
+    const levels = tableName(workbook, run.levels, "Levels");
+    const headerUnits = unitsShownByHeaders(workbook, [zones, framing]);
+    const units = used.units ?? headerUnits ?? "US";
+    const zonesMap = used.mapping?.zones;
+    const options: TakedownOptions = {
+      zones,
+      members: PLAN_SHEETS.members,
+      loads: PLAN_SHEETS.loads,
+      bearings: PLAN_SHEETS.bearings,
+      units,
+      ...(zonesMap ? { mapping: { zones: zonesMap } } : {}),
+      ...(used.headerRows?.zones !== undefined ? { headerRows: { zones: used.headerRows.zones } } : {}),
+      ...(run.sheet ? { sheetName: run.sheet } : {}),
+      replaceForeign: run.replace === true,
+      ...(run.native ? { native: true } : {}),
+    };
+    const { members: _m, loads: _l, bearings: _b, ...rest } = options;
+    const userLoads = tableName(workbook, used.tables?.loads, "Loads");
+    const names = { framing, ...(decks !== undefined ? { decks } : {}), ...(grids !== undefined ? { grids } : {}), ...(levels !== undefined ? { levels } : {}), ...(userLoads !== undefined ? { loads: userLoads } : {}) };
+    const planned = await buildPlanTakedown(port, names, rest);
+    return { result: planned.result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}), ...(saved !== undefined ? { saved } : {}), plan: { names, derivation: planned.derivation } };
+  }
   if (zones === undefined || members === undefined) {
     throw new Error(`${input}: no ${zones === undefined ? "Zones" : "Members"} table or sheet; name it with --${zones === undefined ? "zones" : "members"}.`);
   }

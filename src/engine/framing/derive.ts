@@ -154,6 +154,26 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     return best;
   };
 
+  /**
+   * A member of the same rank whose interior the end p of `m` meets at an angle (a header framing
+   * into the side of a trimmer, a beam into the side of a beam): it bears on that member. Only
+   * an end meeting the interior counts; two members meeting end to end, or lying on one line, do not.
+   */
+  const framesInto = (p: Point, m: Snapped): { mark: string; at: number } | null => {
+    const len = dist(m.p1, m.p2);
+    let best: { mark: string; at: number } | null = null;
+    for (const o of spanIndex(m.level).grid.near(p)) {
+      if (o.mark === m.mark || RANK[o.type] !== RANK[m.type]) continue;
+      const pr = project(p, o.p1, o.p2);
+      if (pr.off > tol || pr.along <= tol || pr.along >= pr.length - tol) continue;
+      // not along the same line: the far end of m lies off the other member's line
+      const far = samePoint(p, m.p1) ? m.p2 : m.p1;
+      if (project(far, o.p1, o.p2).off <= tol || len <= tol) continue;
+      if (!best || o.mark < best.mark) best = { mark: o.mark, at: pr.along };
+    }
+    return best;
+  };
+
   const out: DerivedMember[] = [];
   const added: DerivedMember[] = [];
   const rowOf = (m: (typeof snapped)[number], span: number | null, start: { mark: string; at: number | null } | null, end: { mark: string; at: number | null } | null): DerivedMember => ({
@@ -211,7 +231,7 @@ export function derive(plan: Plan, options: DeriveOptions = {}): Derivation {
     const ends = ([[m.p1, m.cells.x1, "start"], [m.p2, m.cells.x2, "end"]] as const).map(([p, cell, which]) => {
       const col = columnAt(m.level, p);
       if (col) return { mark: col.mark, at: null };
-      const t = through(p, m.level, RANK[m.type], m.mark);
+      const t = through(p, m.level, RANK[m.type], m.mark) ?? framesInto(p, m);
       if (t) return t;
       problems.push(problem(cell, "endOnNothing", `The ${which} of ${m.mark} (${p.x}, ${p.y}) is on no column of level ${m.level} and no member of higher rank than a ${m.type}.`, m.mark));
       return null;

@@ -22,7 +22,8 @@ export interface MemberRefs {
 export interface ChannelRefs {
   /**
    * The loads argument of the LOADPATH beam functions: a 4-column range `kind | magnitude | from |
-   * to` (from and to blank = full length), or a single magnitude cell when the member carries one
+   * to` (from and to blank = full length; a fifth column `end magnitude` when some load of the
+   * takedown varies linearly), or a single magnitude cell when the member carries one
    * uniform load over its whole length.
    */
   readonly loads: string;
@@ -54,6 +55,12 @@ export interface FormulaWriter {
    * `SheetPlan.valueOnly` (replaced by their values).
    */
   readonly governing?: boolean;
+  /**
+   * Whether it spells loads varying linearly along a member (a loads range with an end magnitude
+   * column); when not, the plan writes those members' results with the add-in writer and lists
+   * the cells in `SheetPlan.valueOnly`, as for continuous members.
+   */
+  readonly trapezoids?: boolean;
   /** Vertical reaction (up +) at the member's support number `index` (1 = first, in order along the member). */
   reaction(member: MemberRefs, loads: ChannelRefs, index: number): string;
   /** Largest absolute shear. */
@@ -78,6 +85,7 @@ export const ADD_IN_WRITER: FormulaWriter = {
   writesLoadRanges: true,
   continuous: true,
   governing: true,
+  trapezoids: true,
   reaction: (m, c, index) => `LOADPATH.REACTION(${m.span},${c.loads},${index}${withSupports(m)})`,
   shearMax: (m, c) => `LOADPATH.SHEAR_MAX(${m.span},${c.loads}${withSupports(m)})`,
   momentMax: (m, c) => `LOADPATH.MOMENT_MAX(${m.span},${c.loads}${withSupports(m)})`,

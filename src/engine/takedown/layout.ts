@@ -40,14 +40,22 @@ export const COL = {
 /** Columns of one channel's loads block: kind | magnitude | from | to. */
 export const BLOCK_WIDTH = 4;
 
+/**
+ * Columns of one channel's loads block when some load varies linearly (a Loads row with End width
+ * or End magnitude): kind | magnitude | from | to | end magnitude.
+ */
+export const TRAPEZOID_BLOCK_WIDTH = 5;
+
 /** Every column position of the sheet for a set of channels. */
 export interface Layout {
   readonly units: UnitSystem;
   readonly channels: readonly Channel[];
   /** Channels that are load cases. */
   readonly cases: readonly Channel[];
-  /** First column of each channel's loads block (kind); magnitude is +1, from +2, to +3. */
+  /** First column of each channel's loads block (kind); magnitude is +1, from +2, to +3, end magnitude +4 when the block has it. */
   readonly block: readonly number[];
+  /** Columns of each loads block: {@link BLOCK_WIDTH}, or {@link TRAPEZOID_BLOCK_WIDTH} when some load varies linearly. */
+  readonly blockWidth: number;
   /** Reaction at the first and second support, per channel. */
   readonly r1: readonly number[];
   readonly r2: readonly number[];
@@ -121,13 +129,16 @@ export function channelsOf(cases: readonly LoadCase[], splitLive: boolean, units
  * Column positions for the channels.
  * @param channels - from {@link channelsOf}
  * @param units - unit system
+ * @param deflection - some member has E: the deflection check columns are added
+ * @param endMagnitudes - some load varies linearly: each loads block gets an end magnitude column
  */
-export function layoutOf(channels: readonly Channel[], units: UnitSystem, deflection = false): Layout {
+export function layoutOf(channels: readonly Channel[], units: UnitSystem, deflection = false, endMagnitudes = false): Layout {
+  const blockWidth = endMagnitudes ? TRAPEZOID_BLOCK_WIDTH : BLOCK_WIDTH;
   let next = COL.loaded + 1;
   const take = (n: number): number[] => Array.from({ length: n }, () => next++);
   const block = channels.map(() => {
     const first = next;
-    next += BLOCK_WIDTH;
+    next += blockWidth;
     return first;
   });
   const cases = channels.filter((c) => c.isCase);
@@ -172,6 +183,7 @@ export function layoutOf(channels: readonly Channel[], units: UnitSystem, deflec
     channels,
     cases,
     block,
+    blockWidth,
     r1,
     r2,
     vMax,

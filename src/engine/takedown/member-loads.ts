@@ -43,6 +43,11 @@ export interface AppliedLoad {
    * kip or kN; channel "AT" carries 1 per unit area (its line load is a width, its point load an area).
    */
   readonly magnitudes: Readonly<Partial<Record<ChannelKey, number>>>;
+  /**
+   * Computed magnitude at the end of a line load per channel, when the takedown's loads blocks
+   * carry an end magnitude (some load varies linearly); equal to `magnitudes` for a uniform load.
+   */
+  readonly endMagnitudes?: Readonly<Partial<Record<ChannelKey, number>>>;
 }
 
 /** What holds a member up at one end. */
@@ -204,7 +209,8 @@ function loadsOf(source: MemberLoadsSource, ix: Indexed, m: Member, place: Sheet
       if (kind === "wall") end = b;
     }
     // A wall standing on the member is a line load over its extent (origin: the wall).
-    out.push({ kind: kind === "wall" ? "line" : kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols) });
+    const endMagnitudes = layout.blockWidth > 4 && (kind === "line" || kind === "wall") ? { endMagnitudes: magnitudesAt(source, r, place.live, layout.block.map((b) => b + 4)) } : {};
+    out.push({ kind: kind === "wall" ? "line" : kind, source: text, origin, width: numberOf(source.read(r, COL.width)), start, end, magnitudes: magnitudesAt(source, r, place.live, magCols), ...endMagnitudes });
   }
   if (m.type === "column") {
     for (const d of ix.into.get(m.index) ?? []) {

@@ -134,7 +134,16 @@ export interface ExtraLoad {
   readonly width: NumberInput | null;
   readonly from: NumberInput | null;
   readonly to: NumberInput | null;
+  /** Width at To of an area load (End width), when given: the width varies linearly from Width at From. */
+  readonly endWidth: NumberInput | null;
+  /** Magnitude at To of a line load (End magnitude), when given: it varies linearly from Magnitude at From. */
+  readonly endMagnitude: NumberInput | null;
   readonly valid: boolean;
+}
+
+/** True when a Loads row varies linearly along its length (End width or End magnitude given). */
+export function isTrapezoid(l: ExtraLoad): boolean {
+  return (l.kind === "area" && l.endWidth !== null && l.endWidth.value !== null) || (l.kind === "line" && l.endMagnitude !== null && l.endMagnitude.value !== null);
 }
 
 /** One row of the Bearings table: an interior support of a continuous member. */
@@ -470,6 +479,13 @@ function readLoad(r: RowReader<LoadsColumn>, zones: ReadonlyMap<string, Zone>): 
   const t = to?.value ?? null;
   if (kind !== undefined && kind !== "point" && (f === null) !== (t === null)) r.report(f === null ? "from" : "to", "badValue", `${label}: give both From and To, or neither for the full length.`, mark);
   if (kind !== undefined && kind !== "point" && f !== null && t !== null && !(t > f)) r.report("to", "badValue", `${label}: To ${formatNumber(t)} must be greater than From ${formatNumber(f)}.`, mark);
+  const endWidth = r.number("endWidth", `${label}: End width`, mark).input;
+  const endMagnitude = r.number("endMagnitude", `${label}: End magnitude`, mark).input;
+  const ew = endWidth?.value ?? null;
+  const em = endMagnitude?.value ?? null;
+  if (ew !== null && kind !== "area") r.report("endWidth", "badValue", `${label}: End width applies to an area load only (this row's kind is ${kind ?? "not known"}); a line load takes End magnitude.`, mark);
+  if (ew !== null && kind === "area" && ew < 0) r.report("endWidth", "badValue", `${label}: End width ${formatNumber(ew)} is negative; give a width of 0 or more.`, mark);
+  if (em !== null && kind !== "line") r.report("endMagnitude", "badValue", `${label}: End magnitude applies to a line load only (this row's kind is ${kind ?? "not known"}); an area load takes End width.`, mark);
   return {
     sheetRow,
     sheet: r.table.data.sheet,
@@ -482,6 +498,8 @@ function readLoad(r: RowReader<LoadsColumn>, zones: ReadonlyMap<string, Zone>): 
     width,
     from,
     to,
+    endWidth,
+    endMagnitude,
     valid: r.problems.length === before,
   };
 }

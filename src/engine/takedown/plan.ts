@@ -13,7 +13,7 @@
 import { a1, a1Absolute, columnLetter, sheetCellRef } from "./a1";
 import { ADD_IN_WRITER, deflectionFormula, governingFormula, type CaseLoads, type ChannelRefs, type FormulaWriter, type MemberRefs } from "./formulas";
 import { channelsOf, COL, layoutOf, type Channel, type Layout } from "./layout";
-import { cellKey, endsPath, isFlexural, isTerminal, type LimitInput, type Member, type TakedownModel, type Zone } from "./model";
+import { cellKey, endsPath, isFlexural, isTerminal, isTrapezoid, type LimitInput, type Member, type TakedownModel, type Zone } from "./model";
 import { RESULT_UNITS } from "./units";
 import type { CellRef, CellValue, LoadCase } from "./types";
 import { deliveryLabel, type Delivery, type InteriorSupport, type PlacedLoad } from "./validate";
@@ -111,6 +111,11 @@ interface LoadRow {
   readonly mags: ReadonlyMap<number, string>;
   /** True when the row's live load (if any) is all reducible (ASCE/SEI 7-22 Sec. 4.7). */
   readonly reducibleLive?: boolean;
+  /**
+   * Magnitude at the end (To) per channel, for a load varying linearly from `mags` at its start
+   * (a Loads row with End width or End magnitude); absent for uniform loads.
+   */
+  readonly endMags?: ReadonlyMap<number, string>;
 }
 
 /** Everything the block writers share. */
@@ -160,8 +165,12 @@ function ch(ctx: Context, key: string): number | undefined {
  * psf x ft (+ plf), /1000 -> kip/ft in US; kPa x m (+ kN/m) = kN/m in SI.
  */
 function areaMags(ctx: Context, zone: Zone | null, row: number, extra: Readonly<Partial<Record<LoadCase, CellRef>>>): Map<number, string> {
+  return areaMagsOver(ctx, zone, colAbs(row, COL.width), extra);
+}
+
+/** Magnitudes of an area load of `zone` over the width in cell `width`, plus extra line loads. */
+function areaMagsOver(ctx: Context, zone: Zone | null, width: string, extra: Readonly<Partial<Record<LoadCase, CellRef>>>): Map<number, string> {
   const mags = new Map<number, string>();
-  const width = colAbs(row, COL.width);
   for (const c of ctx.model.cases) {
     const zoneCell = zone?.loadCells[c];
     const extraCell = extra[c];
@@ -198,21 +207,32 @@ function extraLoadRow(ctx: Context, p: PlacedLoad, row: number, axial: boolean):
   const label = `Loads row ${l.sheetRow}`;
   if (l.kind === "area") {
     const partial = l.from?.value != null && l.to?.value != null;
+    // End width: the width varies linearly from Width at From to End width at To (a trapezoid).
+    const endWidth = isTrapezoid(l) ? inputRef(ctx, l.endWidth!.cell) : null;
     return {
       kind: "line",
-      source: `${label}: zone ${l.zone!.name} × width`,
+      source: `${label}: zone ${l.zone!.name} × width${endWidth !== null ? " (to end width)" : ""}`,
       width: ref(l.width),
       from: partial ? ref(l.from) : null,
       to: partial ? ref(l.to) : null,
       mags: areaMags(ctx, l.zone, row, {}),
       reducibleLive: l.zone?.reducible === true,
+      ...(endWidth !== null ? { endMags: areaMagsOver(ctx, l.zone, endWidth, {}) } : {}),
     };
   }
   const c = l.loadCase!;
   const mag = new Map([[ch(ctx, c)!, toKips(ctx, inputRef(ctx, l.magnitude!.cell), false)]]);
   if (l.kind === "point") return { kind: "point", source: `${label}: point ${c}`, from: axial ? null : ref(l.from), to: null, mags: mag };
   const partial = l.from?.value != null && l.to?.value != null;
-  return { kind: "line", source: `${label}: line ${c}`, from: partial ? ref(l.from) : null, to: partial ? ref(l.to) : null, mags: mag };
+  const endMags = isTrapezoid(l) ? new Map([[ch(ctx, c)!, toKips(ctx, inputRef(ctx, l.endMagnitude!.cell), false)]]) : null;
+  return {
+    kind: "line",
+    source: `${label}: line ${c}${endMags !== null ? " (to end magnitude)" : ""}`,
+    from: partial ? ref(l.from) : null,
+    to: partial ? ref(l.to) : null,
+    mags: mag,
+    ...(endMags !== null ? { endMags } : {}),
+  };
 }
 
 /** Cell (absolute, on the generated sheet) holding what a delivery hands over in channel i. */
@@ -278,6 +298,9 @@ function writeLoadRows(ctx: Context, rows: readonly LoadRow[], top: number, firs
       grid.set(r, b, lr.kind === "line" || lr.kind === "wall" ? "line" : "point");
       if (lr.from !== null) grid.set(r, b + 2, f(colAbs(r, COL.from)));
       if (lr.to !== null) grid.set(r, b + 3, f(colAbs(r, COL.to)));
+      // The end magnitude of every line load is written (the start magnitude for a uniform one), so
+      // that no host reading a blank cell as 0 turns a uniform load into a triangle.
+      if (layout.blockWidth > 4 && lr.kind !== "point" && lr.kind !== "reaction") grid.set(r, b + 4, f(lr.endMags?.get(i) ?? a1(r, b + 1)));
     }
   });
   return [...live].sort((a, b) => a - b);
@@ -301,8 +324,9 @@ class ChannelRanges implements ChannelRefs {
     private readonly top: number,
     private readonly n: number,
     uniform: boolean,
+    width: number,
   ) {
-    this.loads = uniform ? a1(top, b + 1) : this.range(b, b + 3);
+    this.loads = uniform ? a1(top, b + 1) : this.range(b, b + width - 1);
   }
   private range(c0: number, c1: number): string {
     return `${a1(this.top, c0)}:${a1(this.top + this.n - 1, c1)}`;
@@ -323,7 +347,7 @@ class ChannelRanges implements ChannelRefs {
 
 /** References of channel i's loads over rows top..top+n-1. */
 function channelRefs(ctx: Context, i: number, top: number, n: number, uniform: boolean): ChannelRefs {
-  return new ChannelRanges(ctx.layout.block[i]!, top, n, uniform);
+  return new ChannelRanges(ctx.layout.block[i]!, top, n, uniform, ctx.layout.blockWidth);
 }
 
 /** Row and columns of the K_LL defaults in the sheet's header (one LOADPATH.KLL call each). */
@@ -372,14 +396,20 @@ function writeFlexural(ctx: Context, m: Member, row: number): MemberPlace {
   const member = writeGeometry(ctx, m, row);
   // A writer that cannot spell a continuous member (classic functions: statics of two supports only)
   // leaves its results to the add-in's functions, replaced by their values after calculation.
-  const handOff = (interiors > 0 || rows.some((r) => r.kind === "wall")) && ctx.writer.continuous !== true;
+  const trapezoid = rows.some((r) => r.endMags !== undefined);
+  const handOff = ((interiors > 0 || rows.some((r) => r.kind === "wall")) && ctx.writer.continuous !== true) || (trapezoid && ctx.writer.trapezoids !== true);
   const writer = handOff ? ADD_IN_WRITER : ctx.writer;
   const put = (r: number, c: number, formula: string): void => {
     grid.set(r, c, f(formula));
-    const why = interiors > 0 ? `is continuous over ${interiors + 2} supports` : "carries a wall's load over part of its length";
+    const why =
+      interiors > 0 && ctx.writer.continuous !== true
+        ? `is continuous over ${interiors + 2} supports`
+        : rows.some((r) => r.kind === "wall") && ctx.writer.continuous !== true
+          ? "carries a wall's load over part of its length"
+          : "carries a load varying linearly along it (End width or End magnitude), which the classic functions do not spell";
     if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark} ${why}: its reactions, shear and moment are computed by the add-in's exact solution` });
   };
-  const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null;
+  const uniform = rows.length === 1 && rows[0]!.kind === "line" && rows[0]!.to === null && !trapezoid;
   const live = writeLoadRows(ctx, rows, row, row, uniform, false);
   for (const i of live) {
     const refs = channelRefs(ctx, i, row, n, uniform);
@@ -685,6 +715,7 @@ function writeColumnHeaders(ctx: Context, row: number): void {
     const b = layout.block[i]!;
     grid.set(row - 1, b, `${c.label} loads`);
     names.push([b, "kind"], [b + 1, `w (${c.lineUnit}) or P (${c.forceUnit})`], [b + 2, `start (${u.length})`], [b + 3, `end (${u.length})`]);
+    if (layout.blockWidth > 4) names.push([b + 4, `w at end (${c.lineUnit})`]);
     names.push([layout.r1[i]!, `${c.label} R1 (${c.forceUnit})`], [layout.r2[i]!, `${c.label} R2 (${c.forceUnit})`]);
     names.push([layout.arriving[i]!, `${c.label} arriving (${c.forceUnit})`], [layout.total[i]!, `${c.label} total (${c.forceUnit})`]);
   });
@@ -802,7 +833,8 @@ export function planSheet(input: PlanInput): SheetPlan {
     const m = model.members[i]!;
     return isFlexural(m.type) && m.deflection?.E != null;
   });
-  const layout = layoutOf(channels, model.units, deflection);
+  const trapezoids = input.placedLoads.some((p) => position.has(p.member) && isTrapezoid(p.load));
+  const layout = layoutOf(channels, model.units, deflection, trapezoids);
   const ctx: Context = {
     model,
     layout,

@@ -4,6 +4,7 @@
  * engine); the list of load combinations of each column is evaluated with the engine's ASCE/SEI
  * 7-22 combinations from the column's computed totals, the same code LOADPATH.COMBINE runs.
  */
+import type { DerivedJson } from "../framing/tables-out";
 import { combinationValues } from "../loads/combinations";
 import { isFlexural, isTerminal, type TakedownModel } from "./model";
 import type { SheetPlan } from "./plan";
@@ -80,6 +81,8 @@ export interface TakedownResults {
   readonly perLength: Readonly<Record<string, { readonly length: number; readonly loads: Readonly<Record<string, number>> }>>;
   readonly balance: Readonly<Record<string, { readonly applied: number; readonly supports: number }>>;
   readonly problems: readonly Problem[];
+  /** A takedown built from a framing plan: per member, what the derivation found (docs/interface.md). */
+  readonly derived?: Readonly<Record<string, DerivedJson>>;
 }
 
 /** What the pane shows after a build. */

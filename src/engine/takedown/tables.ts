@@ -81,7 +81,11 @@ export const MEMBERS_SPEC = {
   },
 } as const satisfies TableSpec<string>;
 
-/** Loads (optional): partial area loads, line loads and point loads on named members. */
+/**
+ * Loads (optional): partial area loads, line loads and point loads on named members. End width
+ * (area) and End magnitude (line), both optional: the width or magnitude varies linearly from its
+ * value at From to the end value at To (a trapezoid).
+ */
 export const LOADS_SPEC = {
   title: "Loads",
   columns: {
@@ -92,6 +96,8 @@ export const LOADS_SPEC = {
     width: spec("Width", "length"),
     from: spec("From", "length"),
     to: spec("To", "length"),
+    endWidth: spec("End width", "length"),
+    endMagnitude: spec("End magnitude", "lineOrForce"),
   },
 } as const satisfies TableSpec<string>;
 

@@ -56,7 +56,20 @@ export type ProblemCode =
   /** A continuous member whose supports cannot hold it (two supports at one point). */
   | "unstable"
   /** A computed result on the generated sheet is an error value, or a number that is not finite. */
-  | "errorResult";
+  | "errorResult"
+  /** Framing plan problems (docs/interface.md, framing plan): see src/engine/framing/types.ts. */
+  | "endOnNothing"
+  | "equalRankCrossing"
+  | "overlappingDecks"
+  | "unsupportedDeck"
+  | "collinearOverlap"
+  | "duplicateColumn"
+  | "unknownGrid"
+  | "badCoordinate"
+  | "zeroLength"
+  | "selfIntersecting"
+  | "badTwoWay"
+  | "unknownLevel";
 
 /** One thing wrong with the input, with the sheet and A1 cell to select. */
 export interface Problem {

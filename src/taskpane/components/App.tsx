@@ -1,4 +1,6 @@
 /** The pane: input tables, column matching, units, build with progress, problems and summary. */
+import { findPlanTables, planChanged, runPlan, type DerivedCounts } from "../plan-session";
+import type { PlanTableNames } from "../../workbook/plan-build";
 import * as React from "react";
 import {
   Button,
@@ -95,6 +97,10 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
   const [headerRows, setHeaderRows] = React.useState<HeaderRows | undefined>(undefined);
   const [bearings, setBearings] = React.useState<string | undefined>(undefined);
   const [reports, setReports] = React.useState<Partial<Record<TableRole, TableReport>>>({});
+  // A framing plan in the workbook (used when no members table is chosen), what was derived, and whether it changed since.
+  const [plan, setPlan] = React.useState<PlanTableNames | null>(null);
+  const [derived, setDerived] = React.useState<DerivedCounts | null>(null);
+  const [planStale, setPlanStale] = React.useState(false);
   // "saved": the matching shown is the one on the settings sheet; "changed": not saved since changed.
   const [matchingState, setMatchingState] = React.useState<"none" | "saved" | "changed" | "saving">("none");
   const busy = progress !== null;
@@ -112,6 +118,9 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
       const found = await session.scan(saved.tables, saved.mapping);
       setScan(found);
       setChoice(found.choice);
+      const planTables = findPlanTables(found.tables);
+      setPlan(planTables);
+      setPlanStale(planTables !== null && (await planChanged(session.port, planTables)));
     } catch (e) {
       setError(`Could not read the workbook: ${e instanceof Error ? e.message : String(e)}`);
     }
@@ -172,6 +181,17 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     setSelected("");
     setProgress({ fraction: 0, message: "Reading the tables…" });
     try {
+      if (choice.members === "" && plan !== null) {
+        setProgress({ fraction: 0.1, message: "Deriving the members from the framing plan…" });
+        const names = { ...plan, ...(choice.loads ? { loads: choice.loads } : {}) };
+        const run = await runPlan(session.port, names, { zones: choice.zones, units, sheetName: session.sheetName, native, replaceForeign });
+        setResult(run.result);
+        setResultUnits(units);
+        setDerived(run.counts);
+        setPlanStale(false);
+        return;
+      }
+      setDerived(null);
       const outcome = await session.run(choice, { mapping, units, native, ...(headerRows ? { headerRows } : {}), ...(bearings ? { bearings } : {}) }, (fraction, message) => setProgress({ fraction, message }), replaceForeign);
       if (outcome.kind === "askReplace") setAskReplace(outcome.sheet);
       else {
@@ -194,7 +214,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
     const report = choice[role] !== "" ? reports[role] : undefined;
     return report ? blockingColumns(report).map((c) => `${ROLE_TITLES[role]}: ${c}`) : [];
   });
-  const ready = choice.zones !== "" && choice.members !== "" && lacking.length === 0;
+  const ready = choice.zones !== "" && (choice.members !== "" || plan !== null) && lacking.length === 0;
   const problems = result?.problems ?? [];
 
   return (
@@ -277,6 +297,12 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                 label="Hand-off version: classic spreadsheet functions only, so the sheet recalculates without the add-in (for a checker or another office)"
                 data-testid="native"
               />
+              {plan !== null && choice.members === "" ? (
+                <Text size={200} role="note" data-testid="plan-found">
+                  Framing plan found ({[`Framing: ${plan.framing}`, plan.decks ? `Decks: ${plan.decks}` : "", plan.grids ? `Grids: ${plan.grids}` : "", plan.levels ? `Levels: ${plan.levels}` : ""].filter((x) => x !== "").join(", ")}): the members, supports and tributary loads are derived from it onto the sheets “Plan members”, “Plan loads” and “Plan bearings”.
+                  {planStale ? " The plan changed since the last derivation: rebuild to update the takedown." : ""}
+                </Text>
+              ) : null}
               {!ready && scan ? (
                 <Text size={200} role="note">
                   {lacking.length > 0 ? `Match these columns first: ${lacking.join("; ")}.` : "Pick the load zones and members tables first."}
@@ -304,6 +330,12 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                       {selected ? <Text size={200} data-testid="selected">Selected {selected}.</Text> : null}
                     </div>
                   </>
+                ) : null}
+                {derived ? (
+                  <Text size={200} data-testid="derived-counts">
+                    Derived from the plan: {Object.entries(derived.byType).map(([t, n]) => `${n} ${t}${n === 1 ? "" : "s"}`).join(", ")}
+                    {derived.addedFoundations > 0 ? ` (${derived.addedFoundations} foundation${derived.addedFoundations === 1 ? "" : "s"} added under columns)` : ""}; {derived.pieces} deck piece{derived.pieces === 1 ? "" : "s"}; {derived.bearings} bearing{derived.bearings === 1 ? "" : "s"}.
+                  </Text>
                 ) : null}
                 {result.summary ? <SummaryView summary={result.summary} units={resultUnits} sheet={result.sheet} /> : null}
                 {result.valueOnly ? (
