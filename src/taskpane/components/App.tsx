@@ -25,6 +25,8 @@ import { SETTINGS_SHEET } from "../../workbook/saved-matching";
 import { blockingColumns, ROLES, ROLE_TITLES, type TableReport, type TableRole } from "../schema";
 import type { PaneSession, ScanResult, TableChoice } from "../session";
 import { DiagramsView } from "./Diagrams";
+import { PlanView } from "./PlanView";
+import { hasFramingPlan } from "../plan-source";
 import { ColumnMatcher, TablePicker, UnitsPicker } from "./Inputs";
 import { ProblemList, SummaryView } from "./Results";
 
@@ -351,6 +353,12 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
               <section className={styles.section} aria-labelledby="lp-diagrams">
                 <h2 id="lp-diagrams" className={styles.h2}>6. Member diagrams</h2>
                 <DiagramsView session={session} built={result.built} json={result.json} />
+              </section>
+            ) : null}
+            {hasFramingPlan(scan.tables) || (result?.ok && result.built) ? (
+              <section className={styles.section} aria-labelledby="lp-plan">
+                <h2 id="lp-plan" className={styles.h2}>7. Plan</h2>
+                <PlanView session={session} tables={scan.tables} units={units} {...(result?.ok && result.built ? { built: result.built } : {})} />
               </section>
             ) : null}
           </>
