@@ -33,6 +33,8 @@ export interface TakedownRun {
   readonly decks?: string;
   readonly grids?: string;
   readonly levels?: string;
+  /** Snapping tolerance of the framing plan (ft or m), `--tolerance`; default 1/16 in or 1.5 mm. */
+  readonly tolerance?: number;
   readonly mapping?: ColumnMapping;
   /** Header rows given with `--header-row` (1-based sheet rows). */
   readonly headerRows?: HeaderRows;
@@ -112,6 +114,7 @@ export function tableOptions(): NonNullable<ParseArgsConfig["options"]> {
     decks: { type: "string" },
     grids: { type: "string" },
     levels: { type: "string" },
+    tolerance: { type: "string" },
     map: { type: "string", multiple: true },
     "header-row": { type: "string", multiple: true },
     sheet: { type: "string" },
@@ -130,6 +133,10 @@ export const TABLE_OPTIONS_USAGE = `  --zones, --members, --loads, --bearings <n
                  members", "Plan loads" and "Plan bearings") when --framing is given, or
                  when the workbook has Framing and Decks and no Members; default: the
                  tables or sheets so named
+  --tolerance <length>
+                 the framing plan's snapping tolerance (ft or m, the plan's units):
+                 member ends and corners closer than this are one point; default 1/16 in
+                 (0.0052083 ft) or 1.5 mm (0.0015 m)
   --map <table>.<Column>=<your header | Group/Header | column letter>
                  a column whose header differs, e.g. --map members.Trib="Trib width",
                  --map "members.End at=End/Location" (header under the group row's
@@ -190,6 +197,11 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
   const members = stringOf(values.members);
   const loads = stringOf(values.loads);
   const bearings = stringOf(values.bearings);
+  const toleranceText = stringOf(values.tolerance);
+  const tolerance = toleranceText === undefined ? undefined : Number(toleranceText.trim());
+  if (toleranceText !== undefined && (toleranceText.trim() === "" || !Number.isFinite(tolerance) || tolerance! <= 0)) {
+    return { error: `--tolerance is a positive length in the plan's units, ft or m (got "${toleranceText}").` };
+  }
   const plan = Object.fromEntries((["framing", "decks", "grids", "levels"] as const).flatMap((k) => (stringOf(values[k]) !== undefined ? [[k, stringOf(values[k])!]] : [])));
   return {
     run: {
@@ -201,6 +213,7 @@ export function runOfOptions(values: OptionValues): { run: TakedownRun } | { err
       ...(loads !== undefined ? { loads } : {}),
       ...(bearings !== undefined ? { bearings } : {}),
       ...plan,
+      ...(tolerance !== undefined ? { tolerance } : {}),
       ...(sheet !== undefined ? { sheet } : {}),
       replace: values.replace === true,
     },
@@ -304,7 +317,7 @@ export async function takedownOfFile(input: string, run: TakedownRun): Promise<T
     const { members: _m, loads: _l, bearings: _b, ...rest } = options;
     const userLoads = tableName(workbook, used.tables?.loads, "Loads");
     const names = { framing, ...(decks !== undefined ? { decks } : {}), ...(grids !== undefined ? { grids } : {}), ...(levels !== undefined ? { levels } : {}), ...(userLoads !== undefined ? { loads: userLoads } : {}) };
-    const planned = await buildPlanTakedown(port, names, rest);
+    const planned = await buildPlanTakedown(port, names, rest, run.tolerance);
     return { result: planned.result, workbook, port, options, ...(headerUnits !== undefined ? { headerUnits } : {}), ...(saved !== undefined ? { saved } : {}), plan: { names, derivation: planned.derivation } };
   }
   if (zones === undefined || members === undefined) {

@@ -386,7 +386,7 @@ const exportCommand: Command = {
       io.err(`loadpath export: ${checked.error}`);
       return EXIT.usage;
     }
-    const planOption = (["framing", "decks", "grids", "levels"] as const).find((k) => checked.run[k] !== undefined);
+    const planOption = (["framing", "decks", "grids", "levels", "tolerance"] as const).find((k) => checked.run[k] !== undefined);
     if (planOption !== undefined) {
       io.err(`loadpath export: --${planOption}: export hands off the takedown sheets of a workbook; build the takedown from the plan first (loadpath takedown <in.xlsx> --framing ... -o built.xlsx), then export built.xlsx.`);
       return EXIT.usage;
