@@ -76,8 +76,14 @@ export interface TakedownBuildResult {
   readonly sheet?: string;
   /** The model, plan and member rows of a written takedown (absent when nothing was written). */
   readonly built?: BuiltTakedown;
-  /** Members whose results were written as values in native mode, with why. */
+  /**
+   * Members whose loads, reactions, shears or moments were written as values in native mode, with
+   * why (continuous members, beams under walls, varying loads): what follows them down the path
+   * does not update by itself.
+   */
   readonly valueOnly?: readonly { readonly mark: string; readonly reason: string }[];
+  /** Native mode: members whose governing values and deflection checks (read by nothing else) were written as values. */
+  readonly governingValuesOnly?: number;
 }
 
 /** Progress callback: fraction 0..1 and a short message; awaiting it lets the host breathe. */

@@ -237,9 +237,14 @@ export const buildTakedown: BuildTakedown = async (port, options, progress) => {
   await report(progress, 1, "Done");
   // The hand-off writer spells every member on two supports; continuous members are written as values, listed.
   const built: BuiltTakedown = { model: planned.model, plan: planned.plan, rowsByMember: rowsByMemberOf(planned.plan, planned.model) };
-  // One entry per member, with the first reason given for it (a continuous member's, before the governing values').
+  // One entry per member whose mechanics are values, with the first reason given for it; the
+  // governing values (add-in only, read by nothing downstream) are counted apart.
   const byMark = new Map<string, { mark: string; reason: string }>();
-  for (const v of planned.plan.valueOnly) if (!byMark.has(v.mark)) byMark.set(v.mark, { mark: v.mark, reason: v.reason });
+  const governingMarks = new Set<string>();
+  for (const v of planned.plan.valueOnly) {
+    if (v.governing) governingMarks.add(v.mark);
+    else if (!byMark.has(v.mark)) byMark.set(v.mark, { mark: v.mark, reason: v.reason });
+  }
   const valueOnly = [...byMark.values()];
-  return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly } : {}) };
+  return { ok: true, problems, summary, json, sheet, built, ...(writer ? { valueOnly, governingValuesOnly: governingMarks.size } : {}) };
 };

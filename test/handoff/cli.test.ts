@@ -34,8 +34,8 @@ describe("loadpath takedown --native", () => {
     expect(r.err).toBe("");
     expect(r.code).toBe(0);
     // Reactions, shears and moments stay live formulas; the governing values over the live load patterns are add-in results.
-    expect(r.out).toMatch(/Hand-off version: \d+ member\(s\) written as values \(not live\):/);
-    expect(r.out).toMatch(/J01: J01: governing values over the load combinations and live load patterns/);
+    expect(r.out).toMatch(/every load, reaction, shear, moment, column load and the balance is a live formula in classic spreadsheet functions/);
+    expect(r.out).toMatch(/the governing values over combinations and live load patterns and the deflection checks of \d+ member\(s\) are values computed by the add-in/);
     expect(await addInCalls(out)).toEqual([]);
     const wb = await readXlsx(out);
     expect(wb.sheets.map((s) => s.name)).toEqual(expect.arrayContaining(["Takedown", "Takedown extremes"]));

@@ -141,8 +141,11 @@ export async function takedownFile(input: string, output: string | undefined, js
     for (const line of balanceLines(result.json)) io.out(line);
     if (result.valueOnly !== undefined) {
       io.out("");
-      if (result.valueOnly.length === 0) io.out("Hand-off version: every result is a live formula in classic spreadsheet functions (no member written as values).");
+      const governing = result.governingValuesOnly ?? 0;
+      const governingNote = governing > 0 ? `; the governing values over combinations and live load patterns and the deflection checks of ${governing} member(s) are values computed by the add-in (each cell has a note; nothing else reads them)` : "";
+      if (result.valueOnly.length === 0) io.out(`Hand-off version: every load, reaction, shear, moment, column load and the balance is a live formula in classic spreadsheet functions (no member's mechanics written as values)${governingNote}.`);
       else {
+        if (governingNote !== "") io.out(`Hand-off version${governingNote.replace(/^;/, ":")}.`);
         io.out(`Hand-off version: ${result.valueOnly.length} member(s) written as values (not live):`);
         for (const v of result.valueOnly) io.out(`  ${v.mark}: ${v.reason}`);
       }

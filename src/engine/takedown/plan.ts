@@ -48,8 +48,10 @@ export interface SheetPlan {
   /**
    * Cells the writer could not spell (a continuous member's results in the hand-off version):
    * written here with the add-in's functions, to be replaced by their computed values and listed.
+   * `governing` marks the governing values and deflection checks, which nothing else on the
+   * sheet reads (the loads carried down, column loads and the balance stay live without them).
    */
-  readonly valueOnly: readonly { readonly row: number; readonly col: number; readonly mark: string; readonly reason: string }[];
+  readonly valueOnly: readonly { readonly row: number; readonly col: number; readonly mark: string; readonly reason: string; readonly governing?: true }[];
 }
 
 /** What the plan is made from. */
@@ -131,7 +133,7 @@ interface Context {
   readonly into: ReadonlyMap<number, readonly Delivery[]>;
   readonly loadsOn: ReadonlyMap<number, readonly PlacedLoad[]>;
   readonly interiors: ReadonlyMap<number, readonly InteriorSupport[]>;
-  readonly valueOnly: { row: number; col: number; mark: string; reason: string }[];
+  readonly valueOnly: { row: number; col: number; mark: string; reason: string; governing?: true }[];
   /** What each wall bears on (its delivery), by wall index. */
   readonly baseOf: ReadonlyMap<number, Delivery>;
   /** Walls and foundations whose length cell is written. */
@@ -466,7 +468,7 @@ function writeGoverning(ctx: Context, m: Member, row: number, n: number, uniform
   const handOff = ctx.writer.governing !== true;
   const put = (r: number, c: number, formula: string): void => {
     grid.set(r, c, f(formula));
-    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark}: governing values over the load combinations and live load patterns, and the deflection check, are computed by the add-in` });
+    if (handOff) ctx.valueOnly.push({ row: r, col: c, mark: m.mark, reason: `${m.mark}: governing values over the load combinations and live load patterns, and the deflection check, are computed by the add-in`, governing: true });
   };
   const both = (r: number, c: number, quantity: string): void => {
     put(r, c, governingFormula(member, cases, quantity, liveFactor, "value"));

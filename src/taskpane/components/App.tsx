@@ -343,7 +343,7 @@ export function App({ session, connected }: AppProps): React.JSX.Element {
                 {result.valueOnly ? (
                   <Text size={200} role="note" data-testid="handoff">
                     {result.valueOnly.length === 0
-                      ? "Hand-off version: every result is a live formula in classic spreadsheet functions."
+                      ? `Hand-off version: every load, reaction, shear, moment, column load and the balance is a live formula in classic spreadsheet functions${(result.governingValuesOnly ?? 0) > 0 ? "; governing values and deflection checks are values computed by the add-in (each cell has a note)" : ""}.`
                       : `Hand-off version: written as values (not live): ${result.valueOnly.map((v) => `${v.mark} (${v.reason})`).join("; ")}.`}
                   </Text>
                 ) : null}
