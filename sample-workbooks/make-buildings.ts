@@ -34,10 +34,10 @@
 import { join } from "node:path";
 import ExcelJS from "exceljs";
 
-type Cell = string | number | null;
+export type Cell = string | number | null;
 
 /** One table of a sample workbook. */
-interface SampleTable {
+export interface SampleTable {
   readonly sheet: string;
   readonly name: string;
   readonly headers: readonly string[];
@@ -45,7 +45,7 @@ interface SampleTable {
 }
 
 /** Write tables as Excel tables, one per sheet, starting at A1. */
-async function writeWorkbook(path: string, tables: readonly SampleTable[], note: string): Promise<void> {
+export async function writeWorkbook(path: string, tables: readonly SampleTable[], note: string): Promise<void> {
   const wb = new ExcelJS.Workbook();
   wb.creator = "Loadpath sample generator";
   for (const t of tables) {

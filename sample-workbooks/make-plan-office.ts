@@ -15,17 +15,8 @@
  * Every mark, dimension and load is invented for the demo.
  */
 import { join } from "node:path";
-import ExcelJS from "exceljs";
-import { steelOffice } from "./make-buildings";
+import { steelOffice, writeWorkbook, type Cell, type SampleTable } from "./make-buildings";
 
-type Cell = string | number | null;
-
-interface SampleTable {
-  readonly sheet: string;
-  readonly name: string;
-  readonly headers: readonly string[];
-  readonly rows: readonly (readonly Cell[])[];
-}
 
 const X: Readonly<Record<string, number>> = { "1": 0, "2": 30, "3": 60 };
 const Y: Readonly<Record<string, number>> = { A: 0, B: 25, C: 50 };
@@ -122,28 +113,8 @@ export function planOffice(): SampleTable[] {
   ];
 }
 
-/** Write tables as Excel tables, one per sheet, starting at A1. */
-export async function writePlanWorkbook(path: string, tables: readonly SampleTable[], note: string): Promise<void> {
-  const wb = new ExcelJS.Workbook();
-  wb.creator = "Loadpath sample generator";
-  for (const t of tables) {
-    const ws = wb.addWorksheet(t.sheet);
-    ws.addTable({
-      name: t.name,
-      ref: "A1",
-      headerRow: true,
-      style: { theme: "TableStyleLight9", showRowStripes: true },
-      columns: t.headers.map((name) => ({ name, filterButton: true })),
-      rows: t.rows.map((r) => t.headers.map((_, i) => r[i] ?? null)),
-    });
-    ws.columns.forEach((col) => (col.width = 14));
-  }
-  const about = wb.addWorksheet("About");
-  about.getCell("A1").value = note;
-  about.getCell("A2").value = "Invented building for the Loadpath demo. Results need review by a qualified engineer; local codes govern.";
-  about.getColumn(1).width = 120;
-  await wb.xlsx.writeFile(path);
-}
+/** Write tables as Excel tables, one per sheet, starting at A1 (the typed samples' writer). */
+export const writePlanWorkbook = writeWorkbook;
 
 async function main(): Promise<void> {
   await writePlanWorkbook(
