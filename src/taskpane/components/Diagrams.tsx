@@ -18,6 +18,7 @@ import { quantitiesOf, quantityName } from "../../engine/takedown/member-envelop
 import { base64Of, copyDrawing, pngOf, stackSvgs } from "../picture";
 import { memberAt, selectionIndexOf } from "../selection-map";
 import type { PaneSession } from "../session";
+import { errorText, useSelectionWatch } from "./use-selection-watch";
 import { TakedownCells } from "../takedown-cells";
 import type { CellSelection } from "../../workbook/port";
 import type { BuiltTakedown, TakedownJson } from "../../workbook/takedown-api";
@@ -60,10 +61,6 @@ interface Shown {
   readonly supports: readonly string[];
 }
 
-function errorText(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
-}
-
 /** The members in takedown order, for the picker. */
 function membersOf(built: BuiltTakedown): { mark: string; text: string }[] {
   return built.plan.places.map((p) => {
@@ -101,25 +98,7 @@ export function DiagramsView({ session, built, json }: DiagramsViewProps): React
     },
     [index, mark],
   );
-  const handler = React.useRef(onSelection);
-  handler.current = onSelection;
-
-  React.useEffect(() => {
-    if (!follows) return undefined;
-    let stop: (() => void) | null = null;
-    let live = true;
-    session
-      .watchSelection((sel) => handler.current(sel))
-      .then((s) => {
-        if (live) stop = s;
-        else s();
-      })
-      .catch((e: unknown) => setError(`Could not follow the selection: ${errorText(e)}`));
-    return () => {
-      live = false;
-      stop?.();
-    };
-  }, [session, follows]);
+  useSelectionWatch(session, follows, onSelection, setError);
 
   React.useEffect(() => {
     if (mark === "") return;

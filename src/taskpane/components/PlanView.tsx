@@ -13,6 +13,7 @@ import { sizedSvg } from "../picture";
 import { ALL_LEVELS, cellOfMark, framingPlanOf, hasFramingPlan, keyPlanOf, levelOfMark, markOfRow, planSvg, type PanePlan } from "../plan-source";
 import { memberAt, selectionIndexOf } from "../selection-map";
 import type { PaneSession } from "../session";
+import { errorText, useSelectionWatch } from "./use-selection-watch";
 import type { CellSelection, TableInfo } from "../../workbook/port";
 import type { BuiltTakedown, UnitSystem } from "../../workbook/takedown-api";
 
@@ -39,10 +40,6 @@ export interface PlanViewProps {
   readonly units: UnitSystem;
   /** The written takedown, when there is one (the key plan and the takedown sheet's rows). */
   readonly built?: BuiltTakedown;
-}
-
-function errorText(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
 }
 
 /** The plan section. */
@@ -110,25 +107,7 @@ export function PlanView({ session, tables, units, built }: PlanViewProps): Reac
     },
     [plan, index, choose],
   );
-  const handler = React.useRef(onSelection);
-  handler.current = onSelection;
-
-  React.useEffect(() => {
-    if (!follows || !plan) return undefined;
-    let stop: (() => void) | null = null;
-    let live = true;
-    session
-      .watchSelection((sel) => handler.current(sel))
-      .then((s) => {
-        if (live) stop = s;
-        else s();
-      })
-      .catch((e: unknown) => setError(`Could not follow the selection: ${errorText(e)}`));
-    return () => {
-      live = false;
-      stop?.();
-    };
-  }, [session, follows, plan]);
+  useSelectionWatch(session, follows && Boolean(plan), onSelection, setError);
 
   const width = Math.round(Math.max(MIN_WIDTH, paneWidth - 2) * ZOOMS[zoom]!);
   const drawn = React.useMemo(() => {
